@@ -1,0 +1,6 @@
+import { render } from 'preact';
+import { App } from './ui/App';
+import './ui/styles.css';
+
+const root = document.getElementById('app');
+if (root) render(<App />, root);

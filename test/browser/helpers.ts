@@ -1,0 +1,78 @@
+// Shared plumbing for browser tests: a real Chromium and a real `vite preview` of dist/.
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { preview, type PreviewServer } from 'vite';
+import { createServer } from 'node:net';
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+
+export const CHROMIUM = process.env.CHROMIUM_PATH || '/usr/bin/chromium';
+export const SHOTS = join(process.cwd(), 'test-output', 'screenshots');
+
+export async function launch(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: CHROMIUM,
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+    ],
+  });
+}
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const addr = s.address();
+      const port = typeof addr === 'object' && addr ? addr.port : 0;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+export interface Served {
+  url: string;
+  close(): Promise<void>;
+}
+
+/** Serve dist/ with vite preview on a free loopback port (each test gets its own origin). */
+export async function serveDist(): Promise<Served> {
+  const port = await freePort();
+  const server: PreviewServer = await preview({
+    configFile: 'vite.config.ts',
+    logLevel: 'warn',
+    preview: { port, strictPort: true, host: '127.0.0.1', open: false },
+  });
+  return {
+    url: `http://127.0.0.1:${port}/`,
+    close: () => server.close(),
+  };
+}
+
+/** A phone-sized context (390×844 CSS px at 2× like a current mid-range phone). */
+export async function phoneContext(browser: Browser): Promise<BrowserContext> {
+  return browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, hasTouch: true, isMobile: true });
+}
+
+/** Open the app and wait until our service worker controls the page. */
+export async function openControlled(page: Page, url: string): Promise<void> {
+  await page.goto(url);
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  // 'prompt' registration does not claim the first page: a reload brings it under control.
+  await page.reload();
+  await page.waitForFunction(() => navigator.serviceWorker.controller !== null, null, { timeout: 20_000 });
+}
+
+export async function shot(page: Page, name: string): Promise<string> {
+  mkdirSync(SHOTS, { recursive: true });
+  const path = join(SHOTS, `${name}.png`);
+  await page.screenshot({ path, fullPage: false });
+  return path;
+}
