@@ -9,15 +9,17 @@ import { InputError, present, requireNonNegative, requireRange } from './errors'
  * Default factor for I from specific conductance, (mol/L)/(µS/cm).
  * Published factors: 1.6×10⁻⁵ (Russell 1976, quoted in Standard Methods 2330; Ponnamperuma et al.
  * 1966 — both from memory) and 1.27×10⁻⁵ (Griffin & Jurinak 1973, Soil Sci. 116:26, from memory).
- * Our default, 1.4×10⁻⁵, lies between them and was chosen against 1,100+ real analyses
- * (USGS INL major-ion data): the median ratio of I computed from the full analysis (with ion
- * pairs) to SC was 1.40×10⁻⁵ (see test/chemistry/real-data.test.ts and DEVELOPERS.md).
+ * Our default, 1.5×10⁻⁵, lies between them and was chosen against 762 real analyses (USGS INL
+ * major-ion data with SC, pH and ANC): the ratio of I computed from the full analysis (with ion
+ * pairs) to SC had median 1.49×10⁻⁵, quartiles 1.44–1.53×10⁻⁵ and 5–95 % range 1.21–1.66×10⁻⁵
+ * (test/chemistry/real-data.test.ts; DEVELOPERS.md). Na–Cl waters run lower (Kwale data: median 1.19×10⁻⁵).
  */
-export const DEFAULT_CONDUCTANCE_FACTOR = 1.4e-5;
+export const DEFAULT_CONDUCTANCE_FACTOR = 1.5e-5;
 
 /**
  * Relative standard uncertainty of the SC-based estimate (fraction). From the same real data:
- * the central 90 % of ratios fell within about ±25 % of the median (test/chemistry/real-data.test.ts).
+ * the central 90 % of ratios fell within −19 % to +11 % of the median (test/chemistry/real-data.test.ts),
+ * so ±15 % is used as the half-width of the estimate in Ca–Mg–HCO₃ waters.
  */
 export const CONDUCTANCE_ESTIMATE_REL_UNCERTAINTY = 0.15;
 
