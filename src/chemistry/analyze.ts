@@ -11,6 +11,7 @@ import {
   ionicStrengthFromTds,
 } from './ionic-strength';
 import { MG_CACO3_PER_MEQ, MOLAR_MASS, SPECIES, type Ion } from './species';
+import { salinityFromSpecificConductance } from './salinity';
 import { speciate, type Speciation } from './speciation';
 import { ATMOSPHERIC_LOG_PCO2, ENGINE_VERSION } from './version';
 
@@ -112,6 +113,12 @@ export interface Analysis {
   calculatedScUsPerCm?: number;
   warnings: ChemWarning[];
 }
+
+/**
+ * Above this SC (µS/cm at 25 °C, about practical salinity 3) the fresh-water SC factor no longer
+ * holds and 'auto' estimates ionic strength through PSS-78 salinity instead (our choice).
+ */
+export const BRACKISH_SC_US_PER_CM = 5000;
 
 /** Fields that must be present for ionic strength "from composition". */
 const COMPOSITION_FIELDS = ['caMgL', 'mgMgL', 'naMgL', 'clMgL', 'so4MgL', 'alkalinityMgLCaCO3'] as const;
@@ -220,6 +227,15 @@ function chooseIonicStrength(
   if (hasComposition(input)) return { fixed: undefined, source: 'composition', rel: 0 };
   if (present('salinity', input.salinity) && input.salinity >= 2) {
     return { fixed: ionicStrengthFromSalinity(input.salinity), source: 'salinity', rel: 0.05 };
+  }
+  if (sc !== undefined && sc !== null && sc >= BRACKISH_SC_US_PER_CM) {
+    // Brackish water: practical salinity from SC (PSS-78 at 25 °C), then I for seawater proportions.
+    const { salinity } = salinityFromSpecificConductance(sc);
+    warnings.push({
+      code: 'ionic-strength-estimated',
+      message: `SC ${sc} µS/cm is brackish: ionic strength estimated from the practical salinity (${salinity.toFixed(1)}) assuming seawater proportions. Enter the major ions for an exact value.`,
+    });
+    return { fixed: ionicStrengthFromSalinity(Math.min(salinity, 45)), source: 'salinity', rel: 0.15 };
   }
   if (sc !== undefined && sc !== null) {
     const choice = fromSc();

@@ -34,3 +34,55 @@ export {
   type Uncertainties,
 } from './analyze';
 export { ENGINE_VERSION, ATMOSPHERIC_LOG_PCO2 } from './version';
+export {
+  oxygenSaturationMgL,
+  oxygenPercentSaturation,
+  oxygenMgLFromPercent,
+  pressureToKPa,
+  stationPressureKPa,
+  PRESSURE_TO_KPA,
+  STANDARD_PRESSURE_KPA,
+  type PressureUnit,
+} from './oxygen';
+export { unionizedAmmoniaFraction, unionizedAmmonia, ammoniaInRange } from './ammonia';
+export {
+  practicalSalinity,
+  salinityFromConductivity,
+  salinityFromSpecificConductance,
+  C35_15_0_US_PER_CM,
+} from './salinity';
+export {
+  titrationAlkalinity,
+  type TitrationInput,
+  type TitrationPoint,
+  type TitrationResult,
+  type TitrationMethod,
+  type GranFit,
+  type InflectionResult,
+} from './titration';
+export {
+  nernstSlopeMvPerPh,
+  phCalibration,
+  conductivityStandardCheck,
+  doAirCalibrationCheck,
+  calibrationCoverage,
+  type PhBufferReading,
+  type PhCalibrationResult,
+  type ScStandardCheck,
+  type DoAirCheck,
+  type CheckEvent,
+  type Coverage,
+  type CheckStatus,
+} from './calibration';
+export { stabilization, replicateRpd, median, type TimedReading, type StabilizationResult } from './stabilization';
+export { dataChecks, calculatedTdsMgL, type DataCheck, type DataCheckStatus, type DataCheckExtras } from './checks';
+export {
+  DEFAULT_PROFILE,
+  profileProblems,
+  profileRef,
+  toleranceAt,
+  type MethodProfile,
+  type ProfileRef,
+  type Tolerance,
+  type StabilizedParameter,
+} from './profiles';
