@@ -39,9 +39,9 @@ export interface PhCalibrationResult {
 }
 
 /**
- * pH meter calibration from two or more buffers (USGS NFM A6.4; ASTM D1293). A least-squares
- * line mV = E₇ + s (pH − 7) gives the slope s (as % of Nernst at the buffers' mean temperature)
- * and the offset E₇. Pass: slope within the profile's limits (default 95–102 %, memory) and
+ * pH meter calibration from two or more buffers (USGS NFM A6.4; ASTM D1293). The first two
+ * buffers give the line mV = E₇ + s (pH − 7): the slope s (as % of Nernst at the buffers' mean
+ * temperature) and the offset E₇; further buffers are checks read back through that line. Pass: slope within the profile's limits (default 95–102 %, memory) and
  * |E₇| ≤ 30 mV (memory), and every buffer reading back within ±0.1 pH (a third buffer as check).
  * One buffer gives an offset only, with a warning, never a made-up slope.
  */
@@ -78,14 +78,14 @@ export function phCalibration(
     return { status: 'incomplete', pass: false, buffers: readings.length, offsetMv, readBack: [], warnings, profile: ref };
   }
 
-  const xs = readings.map((r) => r.bufferPH - 7);
-  const ys = readings.map((r) => r.mV);
-  const n = xs.length;
-  const mx = xs.reduce((a, b) => a + b, 0) / n, my = ys.reduce((a, b) => a + b, 0) / n;
-  let sxx = 0, sxy = 0;
-  for (let i = 0; i < n; i++) { sxx += (xs[i]! - mx) ** 2; sxy += (xs[i]! - mx) * (ys[i]! - my); }
-  const slope = sxy / sxx; // mV per pH, negative for a working electrode
-  const offsetMv = my - slope * mx;
+  // The first two buffers calibrate (a two-point line); any further buffers are check buffers,
+  // read back through that line (field-practice.md §2: two bracketing buffers, a third as check).
+  const [b1, b2] = readings.length >= 2 && readings[0]!.bufferPH !== readings[1]!.bufferPH
+    ? [readings[0]!, readings[1]!]
+    : [readings[0]!, readings.find((r) => r.bufferPH !== readings[0]!.bufferPH)!];
+  const n = readings.length;
+  const slope = (b2.mV - b1.mV) / (b2.bufferPH - b1.bufferPH); // mV per pH, negative for a working electrode
+  const offsetMv = b1.mV - slope * (b1.bufferPH - 7);
   const slopePercent = (-slope / nernst) * 100;
   const readBack = readings.map((r) => {
     const readPH = 7 + (r.mV - offsetMv) / slope;
