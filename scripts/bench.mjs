@@ -1,0 +1,64 @@
+// `npm run bench`: measured figures with budgets, printed as one table and written to
+// bench-results.json (git-ignored). Figures are measurements on this machine, not tests.
+import { runnerImport } from 'vite';
+import { writeFileSync } from 'node:fs';
+import { performance } from 'node:perf_hooks';
+
+const { module: engine } = await runnerImport('./src/chemistry/index.ts');
+
+const rows = [];
+function row(area, what, value, unit, budget, pass) {
+  rows.push({ area, what, value, unit, budget, pass });
+}
+function quantile(sorted, q) {
+  const pos = (sorted.length - 1) * q;
+  const lo = Math.floor(pos), hi = Math.ceil(pos);
+  return sorted[lo] + (sorted[hi] - sorted[lo]) * (pos - lo);
+}
+
+// --- engine: a full analyzeSample with the uncertainty band, over varied field waters ---
+function waters(n) {
+  let s = 12345;
+  const r = () => ((s = (s * 1103515245 + 12345) % 2147483648) / 2147483648);
+  return Array.from({ length: n }, () => ({
+    tempC: 2 + 25 * r(), pH: 6.5 + 2 * r(), scUsPerCm: 50 + 900 * r(), alkalinityMgLCaCO3: 20 + 250 * r(), caMgL: 5 + 100 * r(),
+  }));
+}
+const fieldSet = waters(2000);
+for (const w of fieldSet.slice(0, 300)) engine.analyzeSample(w); // warm up the JIT
+const times = [];
+const t0 = performance.now();
+for (const w of fieldSet) {
+  const a = performance.now();
+  engine.analyzeSample(w);
+  times.push(performance.now() - a);
+}
+const total = performance.now() - t0;
+times.sort((a, b) => a - b);
+const med = quantile(times, 0.5), p99 = quantile(times, 0.99);
+row('engine', 'analyzeSample (field minimum + uncertainty), median', med, 'ms', '≤ 0.5 ms', med <= 0.5);
+row('engine', 'analyzeSample, 99th percentile', p99, 'ms', '', null);
+row('engine', 'analyses per second', (fieldSet.length / total) * 1000, '/s', '', null);
+
+const full = { tempC: 11, pH: 8.4, scUsPerCm: 256, alkalinityMgLCaCO3: 120, caMgL: 31, mgMgL: 8.5, naMgL: 9.8, kMgL: 2.2, clMgL: 6.5, so4MgL: 7.2 };
+const ft = [];
+for (let i = 0; i < 1000; i++) {
+  const a = performance.now();
+  engine.analyzeSample(full);
+  ft.push(performance.now() - a);
+}
+ft.sort((a, b) => a - b);
+row('engine', 'analyzeSample (full major ions), median', quantile(ft, 0.5), 'ms', '≤ 0.5 ms', quantile(ft, 0.5) <= 0.5);
+
+// --- print ---
+const fmt = (v) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toFixed(4));
+console.log('\nBankside benchmark (' + new Date().toISOString() + ', node ' + process.version + ')\n');
+console.log('area     | figure                                                | value        | budget     | result');
+console.log('---------|-------------------------------------------------------|--------------|------------|-------');
+for (const r of rows) {
+  console.log(
+    `${r.area.padEnd(8)} | ${r.what.padEnd(53)} | ${(fmt(r.value) + ' ' + r.unit).padEnd(12)} | ${r.budget.padEnd(10)} | ${r.pass === null ? '' : r.pass ? 'pass' : 'FAIL'}`,
+  );
+}
+writeFileSync('bench-results.json', JSON.stringify({ when: new Date().toISOString(), node: process.version, rows }, null, 2));
+console.log('\nwritten: bench-results.json');
