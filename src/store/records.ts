@@ -1,0 +1,289 @@
+// Repositories: every write validates with zod, appends a revision (who, when, what changed) in
+// the same transaction, and announces the change to other tabs. Deletes are soft and undoable.
+import { z } from 'zod';
+import {
+  CalibrationEvent,
+  Draft,
+  FieldDay,
+  Instrument,
+  Revision,
+  Sample,
+  Settings,
+  Site,
+  DEFAULT_SETTINGS,
+  type Revision as RevisionT,
+} from '../records/schema';
+import { diff } from '../records/diff';
+import { isoWithOffset, newId, nextSeq } from '../records/time';
+import { getDb, notifyChange } from './connection';
+import type { BanksideDB, Db } from './db';
+
+export class StoreError extends Error {
+  constructor(
+    readonly kind: 'quota' | 'invalid' | 'not-found' | 'closed' | 'other',
+    message: string,
+    override readonly cause?: unknown,
+    /** for 'invalid': field path → message */
+    readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+    this.name = 'StoreError';
+  }
+}
+
+/** QuotaExceededError in any of its guises (DOMException name, legacy code 22, Firefox's name). */
+export function isQuotaError(e: unknown): boolean {
+  if (!e || typeof e !== 'object') return false;
+  const err = e as { name?: string; code?: number; inner?: unknown; cause?: unknown };
+  return (
+    err.name === 'QuotaExceededError' ||
+    err.name === 'NS_ERROR_DOM_QUOTA_REACHED' ||
+    err.code === 22 ||
+    isQuotaError(err.inner) ||
+    (err.cause !== e && isQuotaError(err.cause))
+  );
+}
+
+export function toStoreError(e: unknown): StoreError {
+  if (e instanceof StoreError) return e;
+  if (isQuotaError(e)) {
+    return new StoreError(
+      'quota',
+      'The phone’s storage for Bankside is full, so this was NOT saved. Your entry is still on screen: export it now, then free space (old photos, other apps) or send older days to the office.',
+      e,
+    );
+  }
+  if (e && typeof e === 'object' && (e as { name?: string }).name === 'InvalidStateError') {
+    return new StoreError('closed', 'The database was closed (another tab is updating Bankside). Reload this tab.', e);
+  }
+  return new StoreError('other', `Could not save: ${e instanceof Error ? e.message : String(e)}`, e);
+}
+
+function parseOrThrow<T>(schema: z.ZodType<T>, value: unknown, what: string): T {
+  const r = schema.safeParse(value);
+  if (!r.success) {
+    const fields: Record<string, string> = {};
+    for (const issue of r.error.issues) fields[issue.path.join('.') || '(record)'] = issue.message;
+    throw new StoreError('invalid', `The ${what} has invalid values: ${Object.entries(fields).map(([k, v]) => `${k}: ${v}`).join('; ')}`, r.error, fields);
+  }
+  return r.data;
+}
+
+type Entity = RevisionT['entity'];
+type EntityStore = 'samples' | 'sites' | 'calibrations' | 'instruments' | 'fieldDays';
+const STORE_OF: Record<Entity, EntityStore> = {
+  sample: 'samples',
+  site: 'sites',
+  calibration: 'calibrations',
+  instrument: 'instruments',
+  fieldDay: 'fieldDays',
+};
+const SCHEMA_OF = { samples: Sample, sites: Site, calibrations: CalibrationEvent, instruments: Instrument, fieldDays: FieldDay } as const;
+
+interface WithMeta {
+  id: string;
+  createdAt: string;
+  updatedAt: string;
+  deletedAt?: string | undefined;
+  revision?: number;
+}
+
+/**
+ * Create or update an entity, appending a revision with the changed fields. Returns the stored value.
+ * The revision and the record are written in one transaction: both or neither.
+ */
+async function putWithRevision<T extends WithMeta>(entity: Entity, input: unknown, by: string, action?: RevisionT['action'], dbArg?: Db): Promise<T> {
+  const storeName = STORE_OF[entity];
+  const now = isoWithOffset();
+  const raw = { ...(input as Record<string, unknown>) };
+  if (!raw.id) raw.id = newId(entity);
+  if (!raw.createdAt) raw.createdAt = now;
+  raw.updatedAt = now;
+  const db = dbArg ?? (await getDb());
+  try {
+    const tx = db.transaction([storeName, 'revisions'], 'readwrite');
+    const store = tx.objectStore(storeName);
+    const before = (await store.get(raw.id as string)) as T | undefined;
+    if (before) {
+      raw.createdAt = before.createdAt;
+      if (entity === 'sample') raw.revision = (before.revision ?? 1) + 1;
+    }
+    const value = parseOrThrow(SCHEMA_OF[storeName] as unknown as z.ZodType<T>, raw, entity);
+    const changes = before
+      ? diff(before, value).filter((c) => c.path !== 'updatedAt' && c.path !== 'revision')
+      : [{ path: '', from: null, to: 'created' }];
+    await store.put(value as never);
+    const rev: RevisionT = {
+      id: newId('rev'),
+      entity,
+      entityId: value.id,
+      at: now,
+      seq: nextSeq(),
+      by,
+      action: action ?? (before ? 'update' : 'create'),
+      changes,
+    };
+    await tx.objectStore('revisions').put(Revision.parse(rev));
+    await tx.done;
+    notifyChange({ store: storeName, ids: [value.id] });
+    return value;
+  } catch (e) {
+    throw toStoreError(e);
+  }
+}
+
+async function setDeleted(entity: Entity, id: string, deleted: boolean, by: string): Promise<void> {
+  const db = await getDb();
+  const current = (await db.get(STORE_OF[entity], id)) as WithMeta | undefined;
+  if (!current) throw new StoreError('not-found', `No ${entity} ${id}.`);
+  const next: Record<string, unknown> = { ...current };
+  if (deleted) next.deletedAt = isoWithOffset();
+  else delete next.deletedAt;
+  await putWithRevision(entity, next, by, deleted ? 'delete' : 'restore', db);
+}
+
+// ---------------- samples ----------------
+
+export type SampleInputRecord = Omit<z.input<typeof Sample>, 'id' | 'createdAt' | 'updatedAt' | 'localDate'> & {
+  id?: string;
+  createdAt?: string;
+  localDate?: string;
+};
+
+export async function saveSample(sample: SampleInputRecord, by: string): Promise<Sample> {
+  const withDate = { ...sample, localDate: sample.localDate ?? (typeof sample.time === 'string' ? sample.time.slice(0, 10) : undefined) };
+  return putWithRevision<Sample>('sample', withDate, by);
+}
+
+export async function getSample(id: string): Promise<Sample | undefined> {
+  return (await getDb()).get('samples', id);
+}
+
+/** One day's samples (not deleted), by time. */
+export async function listDay(localDate: string, opts: { includeDeleted?: boolean } = {}): Promise<Sample[]> {
+  const all = await (await getDb()).getAllFromIndex('samples', 'localDate', localDate);
+  return all.filter((s) => opts.includeDeleted || !s.deletedAt).sort((a, b) => Date.parse(a.time) - Date.parse(b.time));
+}
+
+export async function listSamplesBetween(fromDate: string, toDate: string): Promise<Sample[]> {
+  const all = await (await getDb()).getAllFromIndex('samples', 'localDate', IDBKeyRange.bound(fromDate, toDate));
+  return all.filter((s) => !s.deletedAt).sort((a, b) => Date.parse(a.time) - Date.parse(b.time));
+}
+
+export async function listSamplesForSite(siteId: string): Promise<Sample[]> {
+  const all = await (await getDb()).getAllFromIndex('samples', 'siteId', siteId);
+  return all.filter((s) => !s.deletedAt).sort((a, b) => Date.parse(a.time) - Date.parse(b.time));
+}
+
+/** Days that have samples, newest first, with counts. */
+export async function listDays(): Promise<Array<{ date: string; count: number }>> {
+  const db = await getDb();
+  const counts = new Map<string, number>();
+  let cursor = await db.transaction('samples').store.index('localDate').openCursor();
+  while (cursor) {
+    if (!cursor.value.deletedAt) counts.set(cursor.key as string, (counts.get(cursor.key as string) ?? 0) + 1);
+    cursor = await cursor.continue();
+  }
+  return [...counts.entries()].map(([date, count]) => ({ date, count })).sort((a, b) => (a.date < b.date ? 1 : -1));
+}
+
+export const deleteSample = (id: string, by: string) => setDeleted('sample', id, true, by);
+export const restoreSample = (id: string, by: string) => setDeleted('sample', id, false, by);
+
+export async function history(entityId: string): Promise<RevisionT[]> {
+  const revs = await (await getDb()).getAllFromIndex('revisions', 'entityId', entityId);
+  return revs.sort((a, b) => a.seq - b.seq);
+}
+
+// ---------------- sites, instruments, calibrations, field days ----------------
+
+export type SiteInput = Omit<z.input<typeof Site>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
+export const saveSite = (site: SiteInput, by: string) => putWithRevision<Site>('site', site, by);
+export async function listSites(): Promise<Site[]> {
+  const all = await (await getDb()).getAll('sites');
+  return all.filter((s) => !s.deletedAt).sort((a, b) => a.code.localeCompare(b.code));
+}
+export const getSite = async (id: string) => (await getDb()).get('sites', id);
+export const deleteSite = (id: string, by: string) => setDeleted('site', id, true, by);
+
+export type InstrumentInput = Omit<z.input<typeof Instrument>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
+export const saveInstrument = (i: InstrumentInput, by: string) => putWithRevision<Instrument>('instrument', i, by);
+export async function listInstruments(): Promise<Instrument[]> {
+  return (await (await getDb()).getAll('instruments')).filter((i) => !i.deletedAt).sort((a, b) => a.name.localeCompare(b.name));
+}
+
+export type CalibrationInput = Omit<z.input<typeof CalibrationEvent>, 'id' | 'createdAt' | 'updatedAt' | 'localDate'> & { id?: string; localDate?: string };
+export const saveCalibration = (c: CalibrationInput, by: string) =>
+  putWithRevision<CalibrationEvent>('calibration', { ...c, localDate: c.localDate ?? c.time.slice(0, 10) }, by);
+export async function listCalibrationsForDay(localDate: string): Promise<CalibrationEvent[]> {
+  const all = await (await getDb()).getAllFromIndex('calibrations', 'localDate', localDate);
+  return all.filter((c) => !c.deletedAt).sort((a, b) => Date.parse(a.time) - Date.parse(b.time));
+}
+export async function listCalibrations(): Promise<CalibrationEvent[]> {
+  return (await (await getDb()).getAll('calibrations')).filter((c) => !c.deletedAt).sort((a, b) => Date.parse(a.time) - Date.parse(b.time));
+}
+
+export type FieldDayInput = Omit<z.input<typeof FieldDay>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
+export const saveFieldDay = (d: FieldDayInput, by: string) => putWithRevision<FieldDay>('fieldDay', d, by);
+
+// ---------------- settings ----------------
+
+export async function getSettings(): Promise<Settings> {
+  const s = await (await getDb()).get('settings', 'settings');
+  return s ? Settings.parse(s) : DEFAULT_SETTINGS;
+}
+
+export async function saveSettings(next: z.input<typeof Settings>): Promise<Settings> {
+  const value = parseOrThrow(Settings, next, 'settings');
+  try {
+    await (await getDb()).put('settings', value);
+  } catch (e) {
+    throw toStoreError(e);
+  }
+  notifyChange({ store: 'settings', ids: ['settings'] });
+  return value;
+}
+
+// ---------------- drafts ----------------
+
+export async function putDraft(draft: Omit<z.input<typeof Draft>, 'updatedAt'>): Promise<void> {
+  const value = parseOrThrow(Draft, { ...draft, updatedAt: isoWithOffset() }, 'draft');
+  try {
+    await (await getDb()).put('drafts', value);
+  } catch (e) {
+    throw toStoreError(e);
+  }
+}
+export const getDraft = async (id: string) => (await getDb()).get('drafts', id);
+export const deleteDraft = async (id: string) => (await getDb()).delete('drafts', id);
+export const listDrafts = async () => (await getDb()).getAll('drafts');
+
+/** Stores that belong in a backup (everything the crew entered and its history). */
+export const BACKUP_STORES = ['sites', 'samples', 'fieldDays', 'instruments', 'calibrations', 'revisions', 'drafts', 'settings', 'profiles', 'exportLog', 'outbox'] as const satisfies ReadonlyArray<keyof BanksideDB>;
+
+/** Remove every record of the invented demo scenario. */
+export async function removeDemo(): Promise<number> {
+  const db = await getDb();
+  let removed = 0;
+  const tx = db.transaction(['sites', 'samples', 'calibrations', 'instruments', 'fieldDays', 'revisions'], 'readwrite');
+  const demoIds = new Set<string>();
+  for (const name of ['sites', 'samples', 'calibrations', 'instruments', 'fieldDays'] as const) {
+    let cursor = await tx.objectStore(name).openCursor();
+    while (cursor) {
+      if ((cursor.value as { demo?: boolean }).demo) {
+        demoIds.add(cursor.value.id);
+        await cursor.delete();
+        removed++;
+      }
+      cursor = await cursor.continue();
+    }
+  }
+  let rc = await tx.objectStore('revisions').openCursor();
+  while (rc) {
+    if (demoIds.has(rc.value.entityId)) await rc.delete();
+    rc = await rc.continue();
+  }
+  await tx.done;
+  notifyChange({ store: 'samples', ids: [...demoIds] });
+  return removed;
+}
