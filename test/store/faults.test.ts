@@ -14,12 +14,12 @@ describe('storage full (QuotaExceededError)', () => {
   it('gives a clear message and leaves the stored record as it was', async () => {
     const s = await saveSample(sampleAt('2026-06-14T09:30:00-06:00'), 'T. Mills');
     // Make the next write fail the way a full disk does (the browser's error, not our code).
-    const IDBObjectStoreProto = (globalThis as { IDBObjectStore: { prototype: { put: unknown } } }).IDBObjectStore.prototype;
-    const realPut = IDBObjectStoreProto.put as (...a: unknown[]) => unknown;
-    vi.spyOn(IDBObjectStoreProto, 'put' as never).mockImplementation(function (this: unknown, ...args: unknown[]) {
-      if ((this as { name: string }).name === 'samples') throw quotaError();
+    const proto = (globalThis as unknown as { IDBObjectStore: { prototype: { put(...a: unknown[]): unknown } } }).IDBObjectStore.prototype;
+    const realPut = proto.put;
+    vi.spyOn(proto, 'put').mockImplementation(function (this: { name: string }, ...args: unknown[]) {
+      if (this.name === 'samples') throw quotaError();
       return realPut.apply(this, args);
-    } as never);
+    });
     const edited = structuredClone(s);
     edited.remarks = 'typed while the phone was full';
     try {
