@@ -1,11 +1,12 @@
-import { useEffect } from 'preact/hooks';
-import { AREAS, EXTRA_PAGES, useRoute, type AreaId } from './router';
+import { useEffect, useState } from 'preact/hooks';
+import { AREAS, DETAIL_PAGES, EXTRA_PAGES, useRoute, type Route } from './router';
 import { Icon } from './components/Icon';
 import { StatusBar } from './components/StatusBar';
 import { startServiceWorker } from './sw-bridge';
+import { onConnectionEvent, type ConnectionEvent } from '../store/connection';
 import { TodayScreen } from './screens/Today';
-import { NewSampleScreen } from './screens/NewSample';
-import { SitesScreen } from './screens/Sites';
+import { SampleEditor } from './screens/SampleEditor';
+import { SitesScreen, SiteDetail } from './screens/Sites';
 import { ChecksScreen } from './screens/Checks';
 import { SendScreen } from './screens/Send';
 import { MoreScreen } from './screens/More';
@@ -13,34 +14,46 @@ import { SettingsScreen } from './screens/Settings';
 import { CautionsScreen } from './screens/Cautions';
 import { AboutScreen } from './screens/About';
 
-const SCREENS: Record<AreaId, () => preact.JSX.Element> = {
-  today: TodayScreen,
-  new: NewSampleScreen,
-  sites: SitesScreen,
-  checks: ChecksScreen,
-  send: SendScreen,
-  more: MoreScreen,
-  settings: SettingsScreen,
-  cautions: CautionsScreen,
-  about: AboutScreen,
-};
-
-function titleOf(route: AreaId): string {
-  return (
-    AREAS.find((a) => a.id === route)?.title ?? EXTRA_PAGES.find((p) => p.id === route)?.title ?? 'Bankside'
-  );
+function titleOf(route: Route): string {
+  const all = [...AREAS, ...EXTRA_PAGES, ...DETAIL_PAGES] as ReadonlyArray<{ id: string; title: string }>;
+  if (route.area === 'sample') return 'Sample';
+  return all.find((a) => a.id === route.area)?.title ?? 'Bankside';
 }
+
+function Screen({ route }: { route: Route }) {
+  switch (route.area) {
+    case 'today': return <TodayScreen route={route} />;
+    case 'new': return <SampleEditor key="new" />;
+    case 'sample': return <SampleEditor key={route.param} sampleId={route.param} />;
+    case 'sites': return <SitesScreen />;
+    case 'site': return <SiteDetail siteId={route.param} />;
+    case 'checks': return <ChecksScreen />;
+    case 'send': return <SendScreen />;
+    case 'more': return <MoreScreen />;
+    case 'settings': return <SettingsScreen />;
+    case 'cautions': return <CautionsScreen />;
+    case 'about': return <AboutScreen />;
+  }
+}
+
+const CONNECTION_WORDS: Record<ConnectionEvent, string> = {
+  blocking: 'Bankside was updated in another tab. Your entry here was saved. Reload this tab to continue.',
+  blocked: 'Another Bankside tab is still open with an older version. Close it (your entry there is saved) to continue here.',
+  terminated: 'The browser closed Bankside’s storage. Reload to continue; your saved entries are kept.',
+};
 
 export function App() {
   const route = useRoute();
+  const [conn, setConn] = useState<ConnectionEvent | null>(null);
   useEffect(() => {
     startServiceWorker();
+    return onConnectionEvent(setConn);
   }, []);
   useEffect(() => {
     document.title = `${titleOf(route)} · Bankside`;
-  }, [route]);
-  const Screen = SCREENS[route];
-  const activeArea = EXTRA_PAGES.some((p) => p.id === route) ? 'more' : route;
+  }, [route.area]);
+  const detailParent = DETAIL_PAGES.find((p) => p.id === route.area)?.parent;
+  const activeArea = EXTRA_PAGES.some((p) => p.id === route.area) ? 'more' : detailParent ?? route.area;
   return (
     <div class="shell">
       <header class="topbar">
@@ -50,18 +63,18 @@ export function App() {
         </div>
         <StatusBar />
       </header>
+      {conn && (
+        <div class="notice warn conn" role="alert">
+          {CONNECTION_WORDS[conn]} <button type="button" class="btn btn-small" onClick={() => location.reload()}>Reload</button>
+        </div>
+      )}
       <main id="main" tabIndex={-1}>
         <h1>{titleOf(route)}</h1>
-        <Screen />
+        <Screen route={route} />
       </main>
       <nav class="tabs" aria-label="Main areas">
         {AREAS.map((a) => (
-          <a
-            key={a.id}
-            href={`#/${a.id}`}
-            class={a.id === activeArea ? 'tab active' : 'tab'}
-            aria-current={a.id === activeArea ? 'page' : undefined}
-          >
+          <a key={a.id} href={`#/${a.id}`} class={a.id === activeArea ? 'tab active' : 'tab'} aria-current={a.id === activeArea ? 'page' : undefined}>
             <Icon name={a.id} />
             <span>{a.label}</span>
           </a>

@@ -16,21 +16,49 @@ export const EXTRA_PAGES = [
   { id: 'about', title: 'Methods and sources' },
 ] as const;
 
-export type AreaId = (typeof AREAS)[number]['id'] | (typeof EXTRA_PAGES)[number]['id'];
+export const DETAIL_PAGES = [
+  { id: 'sample', title: 'Sample', parent: 'today' },
+  { id: 'site', title: 'Site', parent: 'sites' },
+] as const;
 
-const ALL_IDS = new Set<string>([...AREAS.map((a) => a.id), ...EXTRA_PAGES.map((p) => p.id)]);
+export type AreaId =
+  | (typeof AREAS)[number]['id']
+  | (typeof EXTRA_PAGES)[number]['id']
+  | (typeof DETAIL_PAGES)[number]['id'];
 
-export function parseHash(hash: string): AreaId {
-  const id = hash.replace(/^#\/?/, '').split(/[/?]/)[0] ?? '';
-  return (ALL_IDS.has(id) ? id : 'today') as AreaId;
+export interface Route {
+  area: AreaId;
+  /** the id after the area, e.g. #/sample/<id> */
+  param: string;
+  /** ?date=YYYY-MM-DD and the like */
+  query: URLSearchParams;
 }
 
-export function useRoute(): AreaId {
-  const [route, setRoute] = useState<AreaId>(() => parseHash(location.hash));
+const ALL_IDS = new Set<string>([...AREAS, ...EXTRA_PAGES, ...DETAIL_PAGES].map((a) => a.id));
+
+export function parseRoute(hash: string): Route {
+  const clean = hash.replace(/^#\/?/, '');
+  const [path = '', qs = ''] = clean.split('?');
+  const [id = '', param = ''] = path.split('/');
+  const area = (ALL_IDS.has(id) ? id : 'today') as AreaId;
+  return { area, param: decodeURIComponent(param), query: new URLSearchParams(qs) };
+}
+
+/** Just the area (kept for callers that only need it). */
+export function parseHash(hash: string): AreaId {
+  return parseRoute(hash).area;
+}
+
+export function useRoute(): Route {
+  const [route, setRoute] = useState<Route>(() => parseRoute(location.hash));
   useEffect(() => {
-    const onHash = () => setRoute(parseHash(location.hash));
+    const onHash = () => setRoute(parseRoute(location.hash));
     addEventListener('hashchange', onHash);
     return () => removeEventListener('hashchange', onHash);
   }, []);
   return route;
+}
+
+export function go(hash: string): void {
+  location.hash = hash;
 }

@@ -1,8 +1,176 @@
+import { useEffect, useRef, useState } from 'preact/hooks';
+import { deriveSample } from '../../records/derive';
+import type { Site } from '../../records/schema';
+import { getSite, listSamplesForSite, listSites, saveSite, toStoreError } from '../../store/records';
+import { Choice, TextField } from '../components/Field';
+import { StateBadge } from '../components/State';
+import { useLive, useSettings } from '../data';
+import { parseDecimal } from '../forms/parse';
+
+interface Position {
+  latitude: number;
+  longitude: number;
+  accuracyM: number;
+}
+
+function usePosition(): { pos: Position | null; status: string; locate: () => void } {
+  const [pos, setPos] = useState<Position | null>(null);
+  const [status, setStatus] = useState('');
+  const locate = () => {
+    if (!('geolocation' in navigator)) {
+      setStatus('This device gives no position: type the coordinates.');
+      return;
+    }
+    setStatus('Finding your position… (works without signal, may take a minute)');
+    navigator.geolocation.getCurrentPosition(
+      (p) => {
+        setPos({ latitude: p.coords.latitude, longitude: p.coords.longitude, accuracyM: p.coords.accuracy });
+        setStatus('');
+      },
+      (e) => setStatus(`No position: ${e.message}. Type the coordinates instead.`),
+      { enableHighAccuracy: true, timeout: 60_000, maximumAge: 30_000 },
+    );
+  };
+  return { pos, status, locate };
+}
+
+/** Add a site from the sample form or the sites list, with the phone's position if wanted. */
+export function SiteForm({ onCreated, compact }: { onCreated?: (id: string) => void; compact?: boolean }) {
+  const settings = useSettings();
+  const [code, setCode] = useState('');
+  const [name, setName] = useState('');
+  const [type, setType] = useState<Site['type']>('stream');
+  const [lat, setLat] = useState('');
+  const [lon, setLon] = useState('');
+  const [acc, setAcc] = useState('');
+  const [error, setError] = useState('');
+  const { pos, status, locate } = usePosition();
+  useEffect(() => {
+    if (pos) {
+      setLat(pos.latitude.toFixed(6));
+      setLon(pos.longitude.toFixed(6));
+      setAcc(pos.accuracyM.toFixed(0));
+    }
+  }, [pos]);
+  const la = parseDecimal(lat, { label: 'latitude', min: -90, max: 90 });
+  const lo = parseDecimal(lon, { label: 'longitude', min: -180, max: 180 });
+  const ac = parseDecimal(acc, { label: 'accuracy', unit: 'm', min: 0 });
+  const add = async () => {
+    if (!code.trim() || !name.trim()) return setError('Give the site a short code and a name.');
+    if (!la.ok || !lo.ok || !ac.ok) return setError('Fix the coordinates first.');
+    try {
+      const s = await saveSite(
+        { code: code.trim(), name: name.trim(), type, datum: 'WGS84', ...(la.value !== undefined ? { latitude: la.value } : {}), ...(lo.value !== undefined ? { longitude: lo.value } : {}), ...(ac.value !== undefined ? { accuracyM: ac.value } : {}) },
+        settings.operator || 'field crew',
+      );
+      setCode(''); setName(''); setLat(''); setLon(''); setAcc(''); setError('');
+      onCreated?.(s.id);
+    } catch (e) {
+      setError(toStoreError(e).message);
+    }
+  };
+  return (
+    <div class={compact ? 'site-form compact' : 'site-form'}>
+      <div class="row2">
+        <TextField id="site-code" label="Site code" value={code} onInput={setCode} placeholder="e.g. MC-02" />
+        <TextField id="site-name" label="Site name" value={name} onInput={setName} />
+      </div>
+      <Choice name="site-type" label="Site type" value={type} onChange={setType} options={[{ value: 'stream', label: 'Stream' }, { value: 'spring', label: 'Spring' }, { value: 'well', label: 'Well' }, { value: 'lake', label: 'Lake' }]} />
+      <button type="button" class="btn btn-small" onClick={locate}>Use my position</button>
+      {status && <p class="hint" role="status">{status}</p>}
+      <div class="row3">
+        <TextField id="site-lat" label="Latitude (WGS84)" numeric value={lat} onInput={setLat} error={la.ok ? undefined : la.error} />
+        <TextField id="site-lon" label="Longitude (WGS84)" numeric value={lon} onInput={setLon} error={lo.ok ? undefined : lo.error} />
+        <TextField id="site-acc" label="Accuracy" unit="m" numeric value={acc} onInput={setAcc} error={ac.ok ? undefined : ac.error} />
+      </div>
+      {error && <p class="field-error" role="alert">{error}</p>}
+      <button type="button" class="btn btn-primary" onClick={add}>Add site</button>
+    </div>
+  );
+}
+
+export function NewSiteInline({ onCreated }: { onCreated: (id: string) => void }) {
+  const [open, setOpen] = useState(false);
+  if (!open) return <button type="button" class="btn btn-small" onClick={() => setOpen(true)}>+ New site here</button>;
+  return <SiteForm compact onCreated={(id) => { setOpen(false); onCreated(id); }} />;
+}
+
 export function SitesScreen() {
+  const sites = useLive(listSites, [], ['sites']);
+  const list = sites.data ?? [];
   return (
     <section>
-      <p class="lead">Streams, springs and wells you sample, with their coordinates and datum.</p>
-      <div class="empty"><p>No sites yet.</p></div>
+      <p class="lead">Streams, springs and wells you sample. Open one for its history chart.</p>
+      {list.length === 0 ? <div class="empty"><p>No sites yet.</p></div> : (
+        <ul class="cards">
+          {list.map((s) => (
+            <li key={s.id}>
+              <a class="card" href={`#/site/${encodeURIComponent(s.id)}`}>
+                <span class="card-title">{s.code} · {s.name}</span>
+                <span class="muted">{s.type}{s.latitude !== undefined ? ` · ${s.latitude.toFixed(5)}, ${s.longitude?.toFixed(5)} ${s.datum}${s.accuracyM !== undefined ? ` ±${s.accuracyM} m` : ''}` : ' · no position'}{s.demo ? ' · demo' : ''}</span>
+              </a>
+            </li>
+          ))}
+        </ul>
+      )}
+      <h2>Add a site</h2>
+      <SiteForm />
+    </section>
+  );
+}
+
+/** One site: its samples over time, with calcite SI (band) and log pCO₂ on a chart loaded on demand. */
+export function SiteDetail({ siteId }: { siteId: string }) {
+  const settings = useSettings();
+  const site = useLive(() => getSite(siteId), [siteId], ['sites']);
+  const samples = useLive(() => listSamplesForSite(siteId), [siteId], ['samples']);
+  const rows = (samples.data ?? []).map((s) => ({ s, d: deriveSample(s, settings) }));
+  const chartRef = useRef<HTMLDivElement>(null);
+  const [chartError, setChartError] = useState('');
+  useEffect(() => {
+    const el = chartRef.current;
+    const pts = rows.filter((r) => r.d.analysis?.saturationIndex.calcite !== undefined);
+    if (!el || pts.length === 0) return;
+    let plot: { destroy(): void } | null = null;
+    let cancelled = false;
+    import('../chart').then(({ siteChart }) => {
+      if (cancelled) return;
+      el.innerHTML = '';
+      plot = siteChart(el, pts.map((r) => ({
+        t: Date.parse(r.s.time) / 1000,
+        si: r.d.analysis!.saturationIndex.calcite!,
+        band: r.d.analysis!.calciteSiUncertainty ?? 0,
+        logPco2: r.d.analysis!.logPco2 ?? null,
+      })), Math.min(el.clientWidth || 340, 720));
+    }).catch((e) => setChartError(`Chart unavailable: ${e instanceof Error ? e.message : String(e)}`));
+    return () => {
+      cancelled = true;
+      plot?.destroy();
+    };
+  }, [samples.data, settings]);
+  if (!site.data) return <p class="muted">{site.error || 'Opening…'}</p>;
+  const s = site.data;
+  return (
+    <section>
+      <p class="lead">{s.code} · {s.name} ({s.type})</p>
+      <p class="muted">{s.latitude !== undefined ? `${s.latitude.toFixed(5)}, ${s.longitude?.toFixed(5)} ${s.datum}` : 'No position recorded'}{s.notes ? ` · ${s.notes}` : ''}</p>
+      <h2>Calcite SI and log pCO₂ over time</h2>
+      <div ref={chartRef} class="chart" aria-label="Chart of calcite saturation index and CO2 over time" />
+      {chartError && <p class="field-error">{chartError}</p>}
+      <table class="table">
+        <caption>Samples at this site</caption>
+        <thead><tr><th scope="col">Time</th><th scope="col">State</th><th scope="col">SI</th><th scope="col">log pCO₂</th></tr></thead>
+        <tbody>
+          {rows.map(({ s: x, d }) => (
+            <tr key={x.id}>
+              <td><a href={`#/sample/${x.id}`}>{new Date(x.time).toLocaleString()}</a></td>
+              <td><StateBadge state={d.analysis?.calciteState ?? 'unknown'} /></td>
+              <td>{d.analysis?.saturationIndex.calcite?.toFixed(2) ?? '—'}</td>
+              <td>{d.analysis?.logPco2?.toFixed(2) ?? '—'}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
     </section>
   );
 }

@@ -1,12 +1,91 @@
-export function TodayScreen() {
-  const today = new Date().toLocaleDateString(undefined, { weekday: 'long', day: 'numeric', month: 'long' });
+import { deriveSample } from '../../records/derive';
+import { todayLocal } from '../../records/time';
+import { listCalibrations, listDay, listSites, restoreSample } from '../../store/records';
+import { loadDemo } from '../../demo/load';
+import { StateBadge } from '../components/State';
+import { useLive, useSettings } from '../data';
+import { uncoveredParameters } from '../coverage';
+import type { Route } from '../router';
+import { go } from '../router';
+import { useState } from 'preact/hooks';
+
+function shiftDate(date: string, days: number): string {
+  const d = new Date(`${date}T12:00:00`);
+  d.setDate(d.getDate() + days);
+  return todayLocal(d);
+}
+
+const PARAM_WORDS: Record<string, string> = { pH: 'pH', sc: 'conductance', do: 'oxygen' };
+
+export function TodayScreen({ route }: { route: Route }) {
+  const date = route.query.get('date') || todayLocal();
+  const settings = useSettings();
+  const samples = useLive(() => listDay(date), [date], ['samples']);
+  const sites = useLive(listSites, [], ['sites']);
+  const cals = useLive(listCalibrations, [], ['calibrations']);
+  const [busy, setBusy] = useState('');
+  const siteById = new Map((sites.data ?? []).map((s) => [s.id, s]));
+  const list = samples.data ?? [];
+  const deleted = route.query.get('deleted');
+  const isToday = date === todayLocal();
   return (
     <section>
-      <p class="lead">{today}</p>
-      <div class="empty">
-        <p>No samples recorded today.</p>
-        <a class="btn btn-primary btn-block" href="#/new">Start a new sample</a>
+      <div class="day-nav">
+        <a class="btn btn-small" href={`#/today?date=${shiftDate(date, -1)}`} aria-label="Previous day">‹</a>
+        <p class="lead day-label">{new Date(`${date}T12:00:00`).toLocaleDateString(undefined, { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' })}{isToday ? ' (today)' : ''}</p>
+        <a class="btn btn-small" href={`#/today?date=${shiftDate(date, 1)}`} aria-label="Next day">›</a>
       </div>
+      {route.query.get('saved') && <p class="notice" role="status">Sample saved on this phone.</p>}
+      {deleted && (
+        <p class="notice" role="status">
+          Sample deleted. <button type="button" class="btn btn-small" onClick={() => restoreSample(deleted, settings.operator || 'field crew').then(() => go(`#/today?date=${date}`))}>Undo</button>
+        </p>
+      )}
+      <a class="btn btn-primary btn-block" href="#/new">+ New sample</a>
+      {list.length === 0 ? (
+        <div class="empty">
+          <p>No samples recorded {isToday ? 'today' : 'on this day'}.</p>
+          {(sites.data ?? []).length === 0 && (
+            <>
+              <p class="muted">Trying Bankside out? Load the invented demo creek (marked as demo, removable in Settings).</p>
+              <button type="button" class="btn" disabled={!!busy} onClick={async () => { setBusy('Loading…'); await loadDemo(); setBusy(''); go(`#/today?date=${todayLocal()}`); }}>
+                {busy || 'Load demo creek'}
+              </button>
+            </>
+          )}
+        </div>
+      ) : (
+        <ul class="cards" aria-label="Samples of the day">
+          {list.map((s) => {
+            const d = deriveSample(s, settings);
+            const a = d.analysis;
+            const site = siteById.get(s.siteId);
+            const uncovered = uncoveredParameters(s, cals.data ?? []);
+            const nWarn = d.warnings.length + uncovered.length;
+            return (
+              <li key={s.id}>
+                <a class="card sample-card" href={`#/sample/${encodeURIComponent(s.id)}`}>
+                  <span class="card-title">
+                    {new Date(s.time).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })} · {site ? `${site.code} ${site.name}` : 'unknown site'}
+                    {s.qc.type !== 'environmental' && <span class="tag">{s.qc.type}</span>}
+                    {s.demo && <span class="tag">demo</span>}
+                  </span>
+                  <StateBadge state={a?.calciteState ?? 'unknown'} />
+                  <span class="keyvals">
+                    {d.input.tempC !== undefined && Number.isFinite(d.input.tempC) && <span>{d.input.tempC.toFixed(1)} °C</span>}
+                    {d.input.pH != null && <span>pH {d.input.pH.toFixed(2)}</span>}
+                    {d.input.scUsPerCm != null && <span>{d.input.scUsPerCm.toFixed(0)} µS/cm</span>}
+                    {a?.saturationIndex.calcite !== undefined && <span>SI {a.saturationIndex.calcite.toFixed(2)} ± {a.calciteSiUncertainty!.toFixed(2)}</span>}
+                    {a?.logPco2 !== undefined && <span>log pCO₂ {a.logPco2.toFixed(2)}</span>}
+                  </span>
+                  {uncovered.length > 0 && <span class="flag">⚠ Outside a passing {uncovered.map((u) => PARAM_WORDS[u.parameter]).join(' / ')} check</span>}
+                  {nWarn > 0 && <span class="muted">{nWarn} thing{nWarn > 1 ? 's' : ''} to check</span>}
+                </a>
+              </li>
+            );
+          })}
+        </ul>
+      )}
     </section>
   );
 }

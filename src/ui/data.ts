@@ -1,0 +1,34 @@
+// Small hooks that read the store and stay fresh when records change (in this tab or another).
+import { useCallback, useEffect, useState } from 'preact/hooks';
+import { onChange } from '../store/connection';
+import { getSettings } from '../store/records';
+import { DEFAULT_SETTINGS, type Settings } from '../records/schema';
+
+export function useLive<T>(load: () => Promise<T>, deps: unknown[], stores: string[]): { data: T | undefined; error: string; reload: () => void } {
+  const [data, setData] = useState<T | undefined>(undefined);
+  const [error, setError] = useState('');
+  const [tick, setTick] = useState(0);
+  const reload = useCallback(() => setTick((n) => n + 1), []);
+  useEffect(() => {
+    let live = true;
+    load()
+      .then((d) => {
+        if (live) {
+          setData(d);
+          setError('');
+        }
+      })
+      .catch((e: unknown) => live && setError(e instanceof Error ? e.message : String(e)));
+    return () => {
+      live = false;
+    };
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [...deps, tick]);
+  useEffect(() => onChange((n) => (stores.includes(n.store) ? reload() : undefined)), [stores.join(','), reload]);
+  return { data, error, reload };
+}
+
+export function useSettings(): Settings {
+  const { data } = useLive(getSettings, [], ['settings']);
+  return data ?? DEFAULT_SETTINGS;
+}
