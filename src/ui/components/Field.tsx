@@ -17,6 +17,8 @@ interface TextFieldProps {
   autoFocus?: boolean;
 }
 
+const UNIT_WORDS: Record<string, string> = { 'mg/L CaCO3': 'mg/L as CaCO₃', 'mg/L HCO3': 'mg/L as HCO₃', 'uS/cm': 'µS/cm' };
+
 /** A labelled input; numbers get the decimal keypad. The error is said in words beside it. */
 export function TextField(p: TextFieldProps) {
   const errId = `${p.id}-err`;
@@ -38,7 +40,7 @@ export function TextField(p: TextFieldProps) {
           onInput={(e) => p.onInput((e.currentTarget as HTMLInputElement).value)}
           autoFocus={p.autoFocus}
         />
-        {p.unit && <span class="unit">{p.unit}</span>}
+        {p.unit && <span class="unit">{UNIT_WORDS[p.unit] ?? p.unit}</span>}
       </div>
       {p.hint && <p id={hintId} class="hint">{p.hint}</p>}
       {p.error && <p id={errId} class="field-error" role="alert">{p.error}</p>}
