@@ -50,6 +50,53 @@ for (let i = 0; i < 1000; i++) {
 ft.sort((a, b) => a - b);
 row('engine', 'analyzeSample (full major ions), median', quantile(ft, 0.5), 'ms', '≤ 0.5 ms', quantile(ft, 0.5) <= 0.5);
 
+// --- bundle: what a crew downloads on weak signal ---
+{
+  const { build } = await import('vite');
+  const { readFileSync, readdirSync, statSync } = await import('node:fs');
+  const { gzipSync } = await import('node:zlib');
+  const { join } = await import('node:path');
+  await build({ logLevel: 'silent' });
+  const html = readFileSync('dist/index.html', 'utf8');
+  const gz = (f) => gzipSync(readFileSync(join('dist', f))).length / 1024;
+  const initialJs = [...html.matchAll(/(?:src|href)="\/(assets\/[^"]+\.js)"/g)].map((m) => m[1]);
+  const initialCss = [...html.matchAll(/href="\/(assets\/[^"]+\.css)"/g)].map((m) => m[1]);
+  const jsKb = initialJs.reduce((a, f) => a + gz(f), 0);
+  const cssKb = initialCss.reduce((a, f) => a + gz(f), 0);
+  const walk = (d) => readdirSync(d).flatMap((n) => (statSync(join(d, n)).isDirectory() ? walk(join(d, n)) : [join(d, n)]));
+  const precacheKb = walk('dist').filter((f) => !f.endsWith('sw.js')).reduce((a, f) => a + statSync(f).size, 0) / 1024;
+  row('bundle', 'initial JS, gzip', jsKb, 'kB', '≤ 60 kB', jsKb <= 60);
+  row('bundle', 'initial CSS, gzip', cssKb, 'kB', '', null);
+  row('bundle', 'total precache (uncompressed)', precacheKb, 'kB', '', null);
+}
+
+// --- store: real Chromium, real IndexedDB, at 1,000 / 10,000 / 50,000 samples ---
+if (!process.argv.includes('--engine-only')) {
+  const { createServer } = await import('vite');
+  const { chromium } = await import('playwright-core');
+  const server = await createServer({ logLevel: 'error', server: { port: 0, host: '127.0.0.1' } });
+  await server.listen();
+  const url = server.resolvedUrls.local[0];
+  const browser = await chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium',
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+  });
+  try {
+    const page = await browser.newPage();
+    await page.goto(url + 'test/bench/store-bench.html');
+    await page.waitForFunction(() => window.benchReady === true, null, { timeout: 60_000 });
+    for (const n of [1000, 10000, 50000]) {
+      const r = await page.evaluate((k) => window.runStoreBench(k), n);
+      const at10k = n === 10000;
+      row('store', `save one sample, p95 (${n.toLocaleString('en')} stored)`, r.saveP95, 'ms', at10k ? '≤ 20 ms' : '', at10k ? r.saveP95 <= 20 : null);
+      row('store', `list one day (30 samples), median (${n.toLocaleString('en')} stored)`, r.listDayMedian, 'ms', at10k ? '≤ 100 ms' : '', at10k ? r.listDayMedian <= 100 : null);
+    }
+  } finally {
+    await browser.close();
+    await server.close();
+  }
+}
+
 // --- print ---
 const fmt = (v) => (Math.abs(v) >= 100 ? v.toFixed(0) : Math.abs(v) >= 1 ? v.toFixed(2) : v.toFixed(4));
 console.log('\nBankside benchmark (' + new Date().toISOString() + ', node ' + process.version + ')\n');

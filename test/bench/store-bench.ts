@@ -1,0 +1,63 @@
+// Runs inside real Chromium (served by Vite for `npm run bench`): the record store at scale.
+import { getDb, listDay, resetDb, saveSample } from '../../src/store';
+import { Sample } from '../../src/records/schema';
+import { demoRecords } from '../../src/demo/scenario';
+
+function quantile(sorted: number[], q: number): number {
+  const pos = (sorted.length - 1) * q;
+  const lo = Math.floor(pos), hi = Math.ceil(pos);
+  return sorted[lo]! + (sorted[hi]! - sorted[lo]!) * (pos - lo);
+}
+
+/** n samples spread over n/30 days (a crew's ~30 samples a day), valid records built from the demo's shapes. */
+async function seed(n: number): Promise<string> {
+  const template = demoRecords(new Date('2026-06-14T12:00:00')).samples[1]!;
+  const db = await getDb();
+  const start = Date.parse('2024-01-01T08:00:00Z');
+  let busiest = '';
+  const batch = 2000;
+  for (let i = 0; i < n; i += batch) {
+    const tx = db.transaction('samples', 'readwrite');
+    for (let k = i; k < Math.min(n, i + batch); k++) {
+      const day = Math.floor(k / 30);
+      const t = new Date(start + day * 86_400_000 + (k % 30) * 900_000).toISOString().replace(/\.\d{3}Z$/, 'Z');
+      const s = Sample.parse({ ...template, id: `bench-${k}`, time: t, localDate: t.slice(0, 10), createdAt: t, updatedAt: t, demo: false });
+      void tx.store.put(s);
+      busiest = t.slice(0, 10);
+    }
+    await tx.done;
+  }
+  return busiest;
+}
+
+async function run(n: number) {
+  await resetDb();
+  await new Promise<void>((res, rej) => {
+    const r = indexedDB.deleteDatabase('bankside');
+    r.onsuccess = () => res();
+    r.onerror = () => rej(r.error);
+  });
+  const t0 = performance.now();
+  const day = await seed(n);
+  const seedMs = performance.now() - t0;
+  const template = demoRecords(new Date('2026-06-14T12:00:00')).samples[0]!;
+  const saves: number[] = [];
+  for (let i = 0; i < 60; i++) {
+    const a = performance.now();
+    await saveSample({ ...template, id: `bench-new-${i}`, demo: false }, 'bench');
+    saves.push(performance.now() - a);
+  }
+  saves.sort((a, b) => a - b);
+  const lists: number[] = [];
+  for (let i = 0; i < 10; i++) {
+    const a = performance.now();
+    const rows = await listDay(day);
+    lists.push(performance.now() - a);
+    if (rows.length === 0) throw new Error('empty day');
+  }
+  lists.sort((a, b) => a - b);
+  return { n, seedMs, saveP95: quantile(saves, 0.95), saveMedian: quantile(saves, 0.5), listDayMedian: quantile(lists, 0.5), listDayMax: lists[lists.length - 1] };
+}
+
+(window as unknown as { runStoreBench: typeof run }).runStoreBench = run;
+(window as unknown as { benchReady: boolean }).benchReady = true;
