@@ -20,3 +20,15 @@ self.addEventListener('message', (event) => {
     void self.skipWaiting();
   }
 });
+
+// Background sync (Chromium): wake the open app to drain its upload outbox. The outbox lives in
+// IndexedDB and is also drained on start, on 'online' and when the app returns to the foreground.
+self.addEventListener('sync', (event) => {
+  const e = event as ExtendableEvent & { tag?: string };
+  if (e.tag !== 'bankside-outbox') return;
+  e.waitUntil(
+    self.clients.matchAll({ type: 'window' }).then((clients) => {
+      for (const c of clients) c.postMessage({ type: 'drain-outbox' });
+    }),
+  );
+});

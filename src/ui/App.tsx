@@ -3,6 +3,7 @@ import { AREAS, DETAIL_PAGES, EXTRA_PAGES, useRoute, type Route } from './router
 import { Icon } from './components/Icon';
 import { StatusBar } from './components/StatusBar';
 import { startServiceWorker } from './sw-bridge';
+import { startOutboxTriggers } from './outbox-triggers';
 import { onConnectionEvent, type ConnectionEvent } from '../store/connection';
 import { TodayScreen } from './screens/Today';
 import { SampleEditor } from './screens/SampleEditor';
@@ -47,7 +48,12 @@ export function App() {
   const [conn, setConn] = useState<ConnectionEvent | null>(null);
   useEffect(() => {
     startServiceWorker();
-    return onConnectionEvent(setConn);
+    const stopTriggers = startOutboxTriggers();
+    const stopConn = onConnectionEvent(setConn);
+    return () => {
+      stopTriggers();
+      stopConn();
+    };
   }, []);
   useEffect(() => {
     document.title = `${titleOf(route)} · Bankside`;

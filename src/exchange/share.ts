@@ -1,0 +1,25 @@
+// Hand a file to the system share sheet where the browser can (Web Share with files), else download.
+export type ShareOutcome = 'shared' | 'downloaded' | 'cancelled';
+
+export async function shareOrDownload(fileName: string, text: string, type: string): Promise<ShareOutcome> {
+  const file = new File([text], fileName, { type });
+  const nav = navigator as Navigator & { canShare?: (d: ShareData) => boolean };
+  if (typeof nav.share === 'function' && typeof nav.canShare === 'function' && nav.canShare({ files: [file] })) {
+    try {
+      await nav.share({ files: [file], title: fileName });
+      return 'shared';
+    } catch (e) {
+      if (e instanceof DOMException && e.name === 'AbortError') return 'cancelled';
+      // TypeError / NotAllowedError: fall through to a download
+    }
+  }
+  const url = URL.createObjectURL(file);
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = fileName;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+  return 'downloaded';
+}

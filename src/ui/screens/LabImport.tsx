@@ -1,0 +1,80 @@
+import { useState } from 'preact/hooks';
+import { applyLabRows, checkLabRows, guessMapping, type LabMapping, type LabRowCheck } from '../../exchange/lab-import';
+import { parseCsv } from '../../exchange/csv';
+import { getDb } from '../../store/connection';
+import { SelectField } from '../components/Field';
+import { useSettings } from '../data';
+
+const FIELDS: Array<{ key: keyof LabMapping; label: string; required: boolean }> = [
+  { key: 'sampleId', label: 'Sample ID column', required: true },
+  { key: 'parameter', label: 'Parameter column', required: true },
+  { key: 'value', label: 'Value column', required: true },
+  { key: 'unit', label: 'Unit column', required: true },
+  { key: 'qualifier', label: 'Qualifier column', required: false },
+  { key: 'labSampleId', label: 'Lab sample ID column', required: false },
+];
+
+/** Pick a lab CSV, map its columns, preview with errors per row, then store as lab values. */
+export function LabImport() {
+  const settings = useSettings();
+  const [text, setText] = useState('');
+  const [header, setHeader] = useState<string[]>([]);
+  const [mapping, setMapping] = useState<Partial<LabMapping>>({});
+  const [rows, setRows] = useState<LabRowCheck[]>([]);
+  const [fileErrors, setFileErrors] = useState<string[]>([]);
+  const [msg, setMsg] = useState('');
+
+  const preview = async (m: Partial<LabMapping>, t = text) => {
+    if (!FIELDS.every((f) => !f.required || m[f.key])) return setRows([]);
+    const ids = new Set((await (await getDb()).getAllKeys('samples')) as string[]);
+    const r = checkLabRows(t, m as LabMapping, ids);
+    setRows(r.rows);
+    setFileErrors(r.fileErrors);
+  };
+
+  return (
+    <div>
+      <div class="field">
+        <label for="labfile">Lab results file (CSV)</label>
+        <input id="labfile" type="file" accept=".csv,text/csv" onChange={async (e) => {
+          const f = (e.currentTarget as HTMLInputElement).files?.[0];
+          if (!f) return;
+          const t = await f.text();
+          const h = parseCsv(t).header;
+          const m = guessMapping(h);
+          setText(t); setHeader(h); setMapping(m); setMsg('');
+          await preview(m, t);
+        }} />
+      </div>
+      {header.length > 0 && (
+        <div class="row2">
+          {FIELDS.map((f) => (
+            <SelectField key={f.key} id={`map-${f.key}`} label={f.label} value={mapping[f.key] ?? ''} onChange={(v) => { const m = { ...mapping, [f.key]: v || undefined }; setMapping(m); void preview(m); }}>
+              <option value="">{f.required ? 'Choose…' : '(none)'}</option>
+              {header.map((h) => <option key={h} value={h}>{h}</option>)}
+            </SelectField>
+          ))}
+        </div>
+      )}
+      {fileErrors.map((e) => <p key={e} class="field-error">{e}</p>)}
+      {rows.length > 0 && (
+        <>
+          <table class="table">
+            <caption>{rows.filter((r) => r.errors.length === 0).length} of {rows.length} rows ready</caption>
+            <thead><tr><th scope="col">Row</th><th scope="col">Sample</th><th scope="col">Parameter</th><th scope="col">Value</th><th scope="col">Problem</th></tr></thead>
+            <tbody>
+              {rows.slice(0, 30).map((r) => (
+                <tr key={r.row}><td>{r.row}</td><td>{r.sampleId}</td><td>{r.parameter}</td><td>{r.value ?? ''} {r.unit}</td><td class={r.errors.length ? 'field-error' : ''}>{r.errors.join('; ') || 'ok'}</td></tr>
+              ))}
+            </tbody>
+          </table>
+          <button type="button" class="btn btn-primary" onClick={async () => {
+            const r = await applyLabRows(rows, settings.operator || 'office import');
+            setMsg(`Stored ${r.values} lab values on ${r.samples} samples; ${r.skipped} rows skipped. Field values were not changed.`);
+          }}>Store as lab values</button>
+        </>
+      )}
+      {msg && <p class="notice" role="status">{msg}</p>}
+    </div>
+  );
+}
