@@ -48,7 +48,7 @@ export function TodayScreen({ route }: { route: Route }) {
           {(sites.data ?? []).length === 0 && (
             <>
               <p class="muted">Trying Bankside out? Load the invented demo creek (marked as demo, removable in Settings).</p>
-              <button type="button" class="btn" disabled={!!busy} onClick={async () => { setBusy('Loading…'); await loadDemo(); setBusy(''); go(`#/today?date=${todayLocal()}`); }}>
+              <button type="button" class="btn" disabled={!!busy} onClick={async () => { setBusy('Loading…'); await loadDemo(); setBusy(''); }}>
                 {busy || 'Load demo creek'}
               </button>
             </>
