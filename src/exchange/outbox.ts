@@ -1,9 +1,9 @@
 // The upload outbox: exports wait in IndexedDB until the office has confirmed them (2xx).
 // Every batch carries an Idempotency-Key, so a retry after a lost answer never makes a second copy.
-import { OutboxItem, type Settings } from '../records/schema';
+import type { OutboxItem, Settings } from '../records/schema';
 import { isoWithOffset, newId } from '../records/time';
 import { getDb, notifyChange } from '../store/connection';
-import { toStoreError } from '../store/records';
+import { loadSchemas, toStoreError } from '../store/records';
 
 export interface EnqueueInput {
   fileName: string;
@@ -13,7 +13,7 @@ export interface EnqueueInput {
 }
 
 export async function enqueueUpload(input: EnqueueInput): Promise<OutboxItem> {
-  const item = OutboxItem.parse({
+  const item = (await loadSchemas()).OutboxItem.parse({
     id: newId('upload'),
     idempotencyKey: newId('batch'),
     createdAt: isoWithOffset(),
@@ -35,7 +35,7 @@ export async function listOutbox(): Promise<OutboxItem[]> {
 }
 
 async function put(item: OutboxItem): Promise<void> {
-  await (await getDb()).put('outbox', OutboxItem.parse(item));
+  await (await getDb()).put('outbox', (await loadSchemas()).OutboxItem.parse(item));
   notifyChange({ store: 'outbox', ids: [item.id] });
 }
 

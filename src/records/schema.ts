@@ -272,4 +272,4 @@ export type OutboxItem = z.infer<typeof OutboxItem>;
 export type ExportLogEntry = z.infer<typeof ExportLogEntry>;
 export type TitrationRecord = z.infer<typeof TitrationRecord>;
 
-export const DEFAULT_SETTINGS: Settings = Settings.parse({ id: 'settings' });
+export { DEFAULT_SETTINGS } from './defaults';

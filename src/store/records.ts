@@ -1,18 +1,23 @@
 // Repositories: every write validates with zod, appends a revision (who, when, what changed) in
 // the same transaction, and announces the change to other tabs. Deletes are soft and undoable.
-import { z } from 'zod';
-import {
+import type { z } from 'zod';
+import type {
   CalibrationEvent,
   Draft,
   FieldDay,
   Instrument,
-  Revision,
+  Revision as RevisionT,
   Sample,
   Settings,
   Site,
-  DEFAULT_SETTINGS,
-  type Revision as RevisionT,
 } from '../records/schema';
+import { DEFAULT_SETTINGS } from '../records/defaults';
+
+/** The schemas load on the first write, not with the first screen (they are most of the bundle). */
+let schemas: Promise<typeof import('../records/schema')> | null = null;
+export function loadSchemas(): Promise<typeof import('../records/schema')> {
+  return (schemas ??= import('../records/schema'));
+}
 import { diff } from '../records/diff';
 import { isoWithOffset, newId, nextSeq } from '../records/time';
 import { getDb, notifyChange } from './connection';
@@ -78,7 +83,6 @@ const STORE_OF: Record<Entity, EntityStore> = {
   instrument: 'instruments',
   fieldDay: 'fieldDays',
 };
-const SCHEMA_OF = { samples: Sample, sites: Site, calibrations: CalibrationEvent, instruments: Instrument, fieldDays: FieldDay } as const;
 
 interface WithMeta {
   id: string;
@@ -100,6 +104,8 @@ async function putWithRevision<T extends WithMeta>(entity: Entity, input: unknow
   if (!raw.createdAt) raw.createdAt = now;
   raw.updatedAt = now;
   const db = dbArg ?? (await getDb());
+  const S = await loadSchemas();
+  const SCHEMA_OF = { samples: S.Sample, sites: S.Site, calibrations: S.CalibrationEvent, instruments: S.Instrument, fieldDays: S.FieldDay } as const;
   try {
     const tx = db.transaction([storeName, 'revisions'], 'readwrite');
     const store = tx.objectStore(storeName);
@@ -123,7 +129,7 @@ async function putWithRevision<T extends WithMeta>(entity: Entity, input: unknow
       action: action ?? (before ? 'update' : 'create'),
       changes,
     };
-    await tx.objectStore('revisions').put(Revision.parse(rev));
+    await tx.objectStore('revisions').put(S.Revision.parse(rev));
     await tx.done;
     notifyChange({ store: storeName, ids: [value.id] });
     return value;
@@ -144,7 +150,7 @@ async function setDeleted(entity: Entity, id: string, deleted: boolean, by: stri
 
 // ---------------- samples ----------------
 
-export type SampleInputRecord = Omit<z.input<typeof Sample>, 'id' | 'createdAt' | 'updatedAt' | 'localDate'> & {
+export type SampleInputRecord = Omit<z.input<typeof import('../records/schema').Sample>, 'id' | 'createdAt' | 'updatedAt' | 'localDate'> & {
   id?: string;
   createdAt?: string;
   localDate?: string;
@@ -197,7 +203,7 @@ export async function history(entityId: string): Promise<RevisionT[]> {
 
 // ---------------- sites, instruments, calibrations, field days ----------------
 
-export type SiteInput = Omit<z.input<typeof Site>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
+export type SiteInput = Omit<z.input<typeof import('../records/schema').Site>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
 export const saveSite = (site: SiteInput, by: string) => putWithRevision<Site>('site', site, by);
 export async function listSites(): Promise<Site[]> {
   const all = await (await getDb()).getAll('sites');
@@ -206,13 +212,13 @@ export async function listSites(): Promise<Site[]> {
 export const getSite = async (id: string) => (await getDb()).get('sites', id);
 export const deleteSite = (id: string, by: string) => setDeleted('site', id, true, by);
 
-export type InstrumentInput = Omit<z.input<typeof Instrument>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
+export type InstrumentInput = Omit<z.input<typeof import('../records/schema').Instrument>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
 export const saveInstrument = (i: InstrumentInput, by: string) => putWithRevision<Instrument>('instrument', i, by);
 export async function listInstruments(): Promise<Instrument[]> {
   return (await (await getDb()).getAll('instruments')).filter((i) => !i.deletedAt).sort((a, b) => a.name.localeCompare(b.name));
 }
 
-export type CalibrationInput = Omit<z.input<typeof CalibrationEvent>, 'id' | 'createdAt' | 'updatedAt' | 'localDate'> & { id?: string; localDate?: string };
+export type CalibrationInput = Omit<z.input<typeof import('../records/schema').CalibrationEvent>, 'id' | 'createdAt' | 'updatedAt' | 'localDate'> & { id?: string; localDate?: string };
 export const saveCalibration = (c: CalibrationInput, by: string) =>
   putWithRevision<CalibrationEvent>('calibration', { ...c, localDate: c.localDate ?? c.time.slice(0, 10) }, by);
 export async function listCalibrationsForDay(localDate: string): Promise<CalibrationEvent[]> {
@@ -223,18 +229,18 @@ export async function listCalibrations(): Promise<CalibrationEvent[]> {
   return (await (await getDb()).getAll('calibrations')).filter((c) => !c.deletedAt).sort((a, b) => Date.parse(a.time) - Date.parse(b.time));
 }
 
-export type FieldDayInput = Omit<z.input<typeof FieldDay>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
+export type FieldDayInput = Omit<z.input<typeof import('../records/schema').FieldDay>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
 export const saveFieldDay = (d: FieldDayInput, by: string) => putWithRevision<FieldDay>('fieldDay', d, by);
 
 // ---------------- settings ----------------
 
 export async function getSettings(): Promise<Settings> {
   const s = await (await getDb()).get('settings', 'settings');
-  return s ? Settings.parse(s) : DEFAULT_SETTINGS;
+  return s ? { ...DEFAULT_SETTINGS, ...s, units: { ...DEFAULT_SETTINGS.units, ...s.units }, office: { ...DEFAULT_SETTINGS.office, ...s.office } } : DEFAULT_SETTINGS;
 }
 
-export async function saveSettings(next: z.input<typeof Settings>): Promise<Settings> {
-  const value = parseOrThrow(Settings, next, 'settings');
+export async function saveSettings(next: z.input<typeof import('../records/schema').Settings>): Promise<Settings> {
+  const value = parseOrThrow((await loadSchemas()).Settings, next, 'settings');
   try {
     await (await getDb()).put('settings', value);
   } catch (e) {
@@ -246,8 +252,8 @@ export async function saveSettings(next: z.input<typeof Settings>): Promise<Sett
 
 // ---------------- drafts ----------------
 
-export async function putDraft(draft: Omit<z.input<typeof Draft>, 'updatedAt'>): Promise<void> {
-  const value = parseOrThrow(Draft, { ...draft, updatedAt: isoWithOffset() }, 'draft');
+export async function putDraft(draft: Omit<z.input<typeof import('../records/schema').Draft>, 'updatedAt'>): Promise<void> {
+  const value = parseOrThrow((await loadSchemas()).Draft, { ...draft, updatedAt: isoWithOffset() }, 'draft');
   try {
     await (await getDb()).put('drafts', value);
   } catch (e) {

@@ -6,14 +6,17 @@ import { startServiceWorker } from './sw-bridge';
 import { startOutboxTriggers } from './outbox-triggers';
 import { onConnectionEvent, type ConnectionEvent } from '../store/connection';
 import { TodayScreen } from './screens/Today';
-import { SampleEditor } from './screens/SampleEditor';
-import { SitesScreen, SiteDetail } from './screens/Sites';
-import { ChecksScreen } from './screens/Checks';
-import { SendScreen } from './screens/Send';
 import { MoreScreen } from './screens/More';
-import { SettingsScreen } from './screens/Settings';
 import { CautionsScreen } from './screens/Cautions';
-import { AboutScreen } from './screens/About';
+import { lazyScreen } from './lazy';
+
+const SampleEditor = lazyScreen(() => import('./screens/SampleEditor').then((m) => m.SampleEditor));
+const SitesScreen = lazyScreen(() => import('./screens/Sites').then((m) => m.SitesScreen));
+const SiteDetail = lazyScreen(() => import('./screens/Sites').then((m) => m.SiteDetail));
+const ChecksScreen = lazyScreen(() => import('./screens/Checks').then((m) => m.ChecksScreen));
+const SendScreen = lazyScreen(() => import('./screens/Send').then((m) => m.SendScreen));
+const SettingsScreen = lazyScreen(() => import('./screens/Settings').then((m) => m.SettingsScreen));
+const AboutScreen = lazyScreen(() => import('./screens/About').then((m) => m.AboutScreen));
 
 function titleOf(route: Route): string {
   const all = [...AREAS, ...EXTRA_PAGES, ...DETAIL_PAGES] as ReadonlyArray<{ id: string; title: string }>;

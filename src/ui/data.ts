@@ -2,7 +2,8 @@
 import { useCallback, useEffect, useState } from 'preact/hooks';
 import { onChange } from '../store/connection';
 import { getSettings } from '../store/records';
-import { DEFAULT_SETTINGS, type Settings } from '../records/schema';
+import { DEFAULT_SETTINGS } from '../records/defaults';
+import type { Settings } from '../records/schema';
 
 export function useLive<T>(load: () => Promise<T>, deps: unknown[], stores: string[]): { data: T | undefined; error: string; reload: () => void } {
   const [data, setData] = useState<T | undefined>(undefined);

@@ -1,11 +1,11 @@
 // When the outbox drains: on app start, when the browser says it is online, when the app comes
 // back to the foreground, on the service worker's background-sync message, and on the button.
-import { drainOutbox } from '../exchange/outbox';
 import { getSettings } from '../store/records';
 
 async function drainNow(): Promise<void> {
   const s = await getSettings();
   if (!s.office.endpoint) return;
+  const { drainOutbox } = await import('../exchange/outbox');
   await drainOutbox({ office: s.office });
 }
 

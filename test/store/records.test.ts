@@ -90,6 +90,10 @@ describe('drafts, settings, sites, change notices', () => {
     const d = await getDraft('draft:new-sample');
     expect(d!.form).toEqual({ pH: '7,8', tempC: '9.4', remarks: 'wading, knee deep' });
   });
+  it('the schema-free defaults equal the schema’s own defaults', async () => {
+    const { Settings, DEFAULT_SETTINGS } = await import('../../src/records/schema');
+    expect(DEFAULT_SETTINGS).toEqual(Settings.parse({ id: 'settings' }));
+  });
   it('settings default until saved, then persist', async () => {
     expect((await getSettings()).conductanceFactor).toBe(1.5e-5);
     await saveSettings({ id: 'settings', operator: 'T. Mills', activityModel: 'davies' });

@@ -1,7 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { deriveSample } from '../../records/derive';
-import { Sample } from '../../records/schema';
-import { isoWithOffset } from '../../records/time';
+import type { Sample } from '../../records/schema';
 import { setBeforeClose } from '../../store/connection';
 import {
   deleteDraft,
@@ -106,7 +105,8 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
   };
 
   const parsed = useMemo(() => (form ? formToSample(form) : null), [form]);
-  const derived = useMemo(() => (parsed ? deriveSample(Sample.parse({ ...parsed.record, id: 'live', createdAt: isoWithOffset(), updatedAt: isoWithOffset(), localDate: parsed.record.time.slice(0, 10), siteId: parsed.record.siteId || 'none' }), settings) : null), [parsed, settings]);
+  // formToSample fills every default the derivation reads (kits, ions, alpha), so no schema pass is needed here.
+  const derived = useMemo(() => (parsed ? deriveSample({ field: parsed.record.field as Sample['field'], pressure: parsed.record.pressure, lab: stored?.lab ?? [] }, settings) : null), [parsed, settings, stored]);
 
   if (!form || !parsed || !derived) return <p class="muted">Opening…</p>;
   const e = parsed.errors;
