@@ -90,7 +90,17 @@ if (!process.argv.includes('--engine-only')) {
       const at10k = n === 10000;
       row('store', `save one sample, p95 (${n.toLocaleString('en')} stored)`, r.saveP95, 'ms', at10k ? '≤ 20 ms' : '', at10k ? r.saveP95 <= 20 : null);
       row('store', `list one day (30 samples), median (${n.toLocaleString('en')} stored)`, r.listDayMedian, 'ms', at10k ? '≤ 100 ms' : '', at10k ? r.listDayMedian <= 100 : null);
+      row('export', `samples CSV of ${n.toLocaleString('en')} samples (read, derive, write)`, r.exportMs, 'ms', at10k ? '≤ 1000 ms' : '', at10k ? r.exportMs <= 1000 : null);
     }
+    const { coldStart } = await import('./coldstart.mjs');
+    const cs = await coldStart(browser);
+    row('start', 'cold start offline, 4× CPU: first paint (Bankside)', cs.app.fcp, 'ms', '', null);
+    row('start', 'cold start offline, 4× CPU: first paint (bare Preact)', cs.bare.fcp, 'ms', '', null);
+    row('start', 'new-sample form accepts input (Bankside)', cs.app.ready, 'ms', '', null);
+    row('start', 'input accepts input (bare Preact)', cs.bare.ready, 'ms', '', null);
+    const ratio = cs.app.ready / cs.bare.ready;
+    row('start', 'ratio Bankside / bare, time to input', ratio, '×', '≤ 1.5×', ratio <= 1.5);
+    row('start', 'ratio Bankside / bare, first paint', cs.app.fcp / cs.bare.fcp, '×', '', null);
   } finally {
     await browser.close();
     await server.close();

@@ -12,7 +12,7 @@ import {
 } from './ionic-strength';
 import { MG_CACO3_PER_MEQ, MOLAR_MASS, SPECIES, type Ion } from './species';
 import { salinityFromSpecificConductance } from './salinity';
-import { speciate, type Speciation } from './speciation';
+import { speciate, type Speciation, type SpeciationState } from './speciation';
 import { ATMOSPHERIC_LOG_PCO2, ENGINE_VERSION } from './version';
 
 /** What the crew measured. Units are in the names; everything but tempC is optional. */
@@ -277,8 +277,9 @@ function runCore(
   fixedI: number | undefined,
   model: ActivityModel | 'auto',
   lk: LogKTable,
+  start?: SpeciationState,
 ): CoreResult {
-  const spec = speciate({ tempC, pH, ...t, fixedIonicStrength: fixedI, model, logK: lk });
+  const spec = speciate({ tempC, pH, ...t, fixedIonicStrength: fixedI, model, logK: lk, start });
   return { spec, siCalcite: calciteSi(spec, lk) };
 }
 
@@ -296,11 +297,12 @@ function saturationPh(
   fixedI: number | undefined,
   model: ActivityModel | 'auto',
   lk: LogKTable,
+  start?: SpeciationState,
 ): number | undefined {
   let x0 = pH, f0 = si0;
   let x1 = Math.min(13.5, Math.max(2, pH - si0));
   for (let i = 0; i < 30; i++) {
-    const f1 = runCore(tempC, x1, t, fixedI, model, lk).siCalcite;
+    const f1 = runCore(tempC, x1, t, fixedI, model, lk, start).siCalcite;
     if (f1 === undefined) return undefined;
     if (Math.abs(f1) < 1e-7) return x1;
     const slope = (f1 - f0) / (x1 - x0);
@@ -424,7 +426,7 @@ export function analyzeSample(input: SampleInput, options: AnalyzeOptions = {}):
       });
     }
     if (core.siCalcite !== undefined) {
-      const pHs = saturationPh(tempC, pH, core.siCalcite, t, iChoice.fixed, model, lk);
+      const pHs = saturationPh(tempC, pH, core.siCalcite, t, iChoice.fixed, model, lk, spec.state);
       if (pHs !== undefined) result.langelier = { pHs, lsi: pH - pHs, rsi: 2 * pHs - pH };
     }
   } else {
@@ -470,7 +472,7 @@ export function analyzeSample(input: SampleInput, options: AnalyzeOptions = {}):
   // Uncertainty band on calcite SI and the crew's flag.
   if (result.saturationIndex.calcite !== undefined && pH !== undefined) {
     const si = result.saturationIndex.calcite;
-    const u = calciteUncertainty(input, t, pH, si, iChoice, model, lk, unc);
+    const u = calciteUncertainty(input, t, pH, si, iChoice, model, lk, unc, spec?.state);
     result.calciteSiUncertainty = u;
     result.calciteState = si - u > 0 ? 'supersaturated' : si + u < 0 ? 'undersaturated' : 'near-equilibrium';
     if (si < -3 || si > 2) {
@@ -617,6 +619,7 @@ function calciteUncertainty(
   model: ActivityModel | 'auto',
   lk: LogKTable,
   unc: Uncertainties,
+  start?: SpeciationState,
 ): number {
   const tempC = input.tempC;
   let sum = 0;
@@ -624,19 +627,19 @@ function calciteUncertainty(
     if (v !== undefined && Number.isFinite(v)) sum += (v - si) * (v - si);
   };
   const pHp = Math.min(14, pH + unc.pH);
-  add(runCore(tempC, pHp, t, iChoice.fixed, model, lk).siCalcite);
+  add(runCore(tempC, pHp, t, iChoice.fixed, model, lk, start).siCalcite);
   if (unc.tempC > 0) {
     const tp = Math.min(100, tempC + unc.tempC);
-    add(runCore(tp, pH, t, iChoice.fixed, model, logKTable(tp)).siCalcite);
+    add(runCore(tp, pH, t, iChoice.fixed, model, logKTable(tp), start).siCalcite);
   }
   if (t.alkEqL !== undefined && unc.alkalinityRel > 0) {
-    add(runCore(tempC, pH, { ...t, alkEqL: t.alkEqL * (1 + unc.alkalinityRel) }, iChoice.fixed, model, lk).siCalcite);
+    add(runCore(tempC, pH, { ...t, alkEqL: t.alkEqL * (1 + unc.alkalinityRel) }, iChoice.fixed, model, lk, start).siCalcite);
   }
   if (t.ca !== undefined && unc.caRel > 0) {
-    add(runCore(tempC, pH, { ...t, ca: t.ca * (1 + unc.caRel) }, iChoice.fixed, model, lk).siCalcite);
+    add(runCore(tempC, pH, { ...t, ca: t.ca * (1 + unc.caRel) }, iChoice.fixed, model, lk, start).siCalcite);
   }
   if (iChoice.fixed !== undefined && iChoice.rel > 0) {
-    add(runCore(tempC, pH, t, iChoice.fixed * (1 + iChoice.rel), model, lk).siCalcite);
+    add(runCore(tempC, pH, t, iChoice.fixed * (1 + iChoice.rel), model, lk, start).siCalcite);
   }
   return Math.sqrt(sum);
 }

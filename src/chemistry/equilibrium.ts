@@ -126,9 +126,17 @@ export function isExtrapolated(reaction: Reaction, tempC: number): boolean {
 /** All log K values the speciation needs at one temperature, computed once. */
 export type LogKTable = Record<Reaction, number>;
 
+const tableCache = new Map<number, LogKTable>();
+
+/** The table is cached for the last few temperatures used (a day's samples share a handful). */
 export function logKTable(tempC: number): LogKTable {
+  const hit = tableCache.get(tempC);
+  if (hit) return hit;
   const T = kelvin(tempC);
   const out = {} as LogKTable;
   for (const key of Object.keys(REACTIONS) as Reaction[]) out[key] = evaluate(REACTIONS[key], T);
+  Object.freeze(out);
+  if (tableCache.size >= 64) tableCache.delete(tableCache.keys().next().value as number);
+  tableCache.set(tempC, out);
   return out;
 }

@@ -39,6 +39,13 @@ export interface SpeciationInput {
   model: ActivityModel | 'auto';
   /** log K values at tempC, when the caller already has them */
   logK?: LogKTable;
+  /** free concentrations and I from a nearby solution, to start from (fewer passes) */
+  start?: SpeciationState;
+}
+
+/** The iteration's unknowns: enough to warm-start a nearby speciation. */
+export interface SpeciationState {
+  ca: number; mg: number; na: number; k: number; so4: number; hco3: number; I: number;
 }
 
 export type SpeciesKey = Ion | 'CaCO3aq' | 'MgCO3aq' | 'CaSO4aq' | 'MgSO4aq' | 'NaHCO3aq' | 'H2CO3' | 'H4SiO4';
@@ -58,6 +65,19 @@ export interface Speciation {
   dicMolL: number;
   /** true when the alkalinity given is smaller than its non-carbonate part at this pH */
   alkalinityBelowNoncarbonate: boolean;
+  state: SpeciationState;
+}
+
+/** 10^logK for a table, computed once per table object (a table is made once per temperature). */
+const kCache = new WeakMap<LogKTable, Record<keyof LogKTable, number>>();
+function kValues(lk: LogKTable): Record<keyof LogKTable, number> {
+  let k = kCache.get(lk);
+  if (!k) {
+    k = {} as Record<keyof LogKTable, number>;
+    for (const key of Object.keys(lk) as Array<keyof LogKTable>) k[key] = Math.pow(10, lk[key]);
+    kCache.set(lk, k);
+  }
+  return k;
 }
 
 const CHARGED: Ion[] = Object.keys(SPECIES) as Ion[];
@@ -67,7 +87,8 @@ const TOL = 1e-10;
 
 export function speciate(input: SpeciationInput): Speciation {
   const lk = input.logK ?? logKTable(input.tempC);
-  const K = (r: keyof LogKTable) => Math.pow(10, lk[r]);
+  const kv = kValues(lk);
+  const K = (r: keyof LogKTable) => kv[r];
   const terms = debyeHuckelTerms(input.tempC);
   const aH = Math.pow(10, -input.pH);
   const Kw = K('water'), K1 = K('carbonic1'), K2 = K('carbonic2');
@@ -82,12 +103,17 @@ export function speciate(input: SpeciationInput): Speciation {
   };
   const alk = input.alkEqL;
 
-  // free concentrations, first guess = totals
-  let ca = T.ca, mg = T.mg, na = T.na, kk = T.k, so4 = T.so4;
-  let hco3 = alk !== undefined ? Math.max(alk, 0) : 0;
+  // free concentrations, first guess = totals (or a nearby solution's, scaled to these totals)
+  const st = input.start;
+  const scaled = (free: number | undefined, total: number) => (st && free !== undefined && total > 0 ? Math.min(free, total) : total);
+  let ca = scaled(st?.ca, T.ca), mg = scaled(st?.mg, T.mg), na = scaled(st?.na, T.na), kk = scaled(st?.k, T.k), so4 = scaled(st?.so4, T.so4);
+  let hco3 = alk !== undefined ? (st ? st.hco3 : Math.max(alk, 0)) : 0;
   let I =
     input.fixedIonicStrength ??
+    st?.I ??
     0.5 * (4 * T.ca + 4 * T.mg + T.na + T.k + T.cl + 4 * T.so4 + T.no3 + T.f + (alk ?? 0) + aH);
+  let lastI = Number.NaN;
+  let lastModel: ActivityModel | null = null;
 
   const lg = {} as Record<Ion, number>;
   const g = {} as Record<Ion, number>;
@@ -99,9 +125,14 @@ export function speciate(input: SpeciationInput): Speciation {
 
   for (iter = 1; iter <= MAX_ITER; iter++) {
     model = input.model === 'auto' ? chooseActivityModel(I) : input.model;
-    for (const ion of CHARGED) {
-      lg[ion] = logGammaFor(ion, I, terms, model);
-      g[ion] = Math.pow(10, lg[ion]);
+    // γ depends only on I and the model: with a fixed (estimated) I it is computed once.
+    if (I !== lastI || model !== lastModel) {
+      for (const ion of CHARGED) {
+        lg[ion] = logGammaFor(ion, I, terms, model);
+        g[ion] = Math.pow(10, lg[ion]);
+      }
+      lastI = I;
+      lastModel = model;
     }
     const aCa = g.Ca * ca, aMg = g.Mg * mg, aNa = g.Na * na, aK = g.K * kk, aSO4 = g.SO4 * so4;
     const cH = aH / g.H;
@@ -204,6 +235,7 @@ export function speciate(input: SpeciationInput): Speciation {
     logGamma: { ...lg },
     dicMolL: dic,
     alkalinityBelowNoncarbonate: belowNoncarb,
+    state: { ca, mg, na, k: kk, so4, hco3, I },
   };
 }
 

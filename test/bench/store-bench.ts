@@ -2,6 +2,8 @@
 import { getDb, listDay, resetDb, saveSample } from '../../src/store';
 import { Sample } from '../../src/records/schema';
 import { demoRecords } from '../../src/demo/scenario';
+import { wideCsv } from '../../src/exchange/csv';
+import { DEFAULT_SETTINGS } from '../../src/records/defaults';
 
 function quantile(sorted: number[], q: number): number {
   const pos = (sorted.length - 1) * q;
@@ -56,7 +58,13 @@ async function run(n: number) {
     if (rows.length === 0) throw new Error('empty day');
   }
   lists.sort((a, b) => a - b);
-  return { n, seedMs, saveP95: quantile(saves, 0.95), saveMedian: quantile(saves, 0.5), listDayMedian: quantile(lists, 0.5), listDayMax: lists[lists.length - 1] };
+  const e0 = performance.now();
+  const all = await (await getDb()).getAll('samples');
+  const csv = wideCsv({ samples: all, sites: [], settings: DEFAULT_SETTINGS });
+  const exportMs = performance.now() - e0;
+  if (csv.length < all.length * 100) throw new Error('export too short');
+  return {
+    exportMs, n, seedMs, saveP95: quantile(saves, 0.95), saveMedian: quantile(saves, 0.5), listDayMedian: quantile(lists, 0.5), listDayMax: lists[lists.length - 1] };
 }
 
 (window as unknown as { runStoreBench: typeof run }).runStoreBench = run;

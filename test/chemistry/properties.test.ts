@@ -108,3 +108,19 @@ describe('analyzeSample properties', () => {
     );
   });
 });
+
+describe('speciation warm start', () => {
+  it('starting from a nearby solution converges to the same answer as starting cold', async () => {
+    const { speciate } = await import('../../src/chemistry');
+    fc.assert(
+      fc.property(fieldWater, fc.double({ min: -0.3, max: 0.3, noNaN: true }), (w, dpH) => {
+        const base = { tempC: w.tempC, pH: w.pH, alkEqL: w.alkalinityMgLCaCO3 / 50043, ca: w.caMgL / 40078, mg: w.mgMgL / 24305, na: w.naMgL / 22990, k: w.kMgL / 39098, cl: w.clMgL / 35453, so4: w.so4MgL / 96060, model: 'auto' as const };
+        const near = speciate(base);
+        const cold = speciate({ ...base, pH: base.pH + dpH });
+        const warm = speciate({ ...base, pH: base.pH + dpH, start: near.state });
+        return Math.abs(cold.logActivity.CO3 - warm.logActivity.CO3) < 1e-8 && Math.abs(cold.logActivity.Ca - warm.logActivity.Ca) < 1e-8 && warm.iterations <= cold.iterations + 1;
+      }),
+      opt(200),
+    );
+  });
+});
