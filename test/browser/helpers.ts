@@ -76,3 +76,37 @@ export async function shot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path, fullPage: false });
   return path;
 }
+
+const MIME: Record<string, string> = {
+  '.html': 'text/html; charset=utf-8', '.js': 'text/javascript', '.css': 'text/css', '.png': 'image/png',
+  '.svg': 'image/svg+xml', '.webmanifest': 'application/manifest+json', '.json': 'application/json',
+};
+
+/**
+ * A plain static server over dist/ whose files can be swapped while it runs: used to "deploy" a
+ * new release (a changed sw.js) to a page that is open.
+ */
+export async function serveSwappable(): Promise<Served & { replace(path: string, body: string): void }> {
+  const { createServer } = await import('node:http');
+  const { readFile } = await import('node:fs/promises');
+  const { extname } = await import('node:path');
+  const overrides = new Map<string, string>();
+  const server = createServer(async (req, res) => {
+    const path = decodeURIComponent(new URL(req.url ?? '/', 'http://x').pathname);
+    const file = path === '/' ? '/index.html' : path;
+    try {
+      const body = overrides.get(file) ?? (await readFile(join(process.cwd(), 'dist', file)));
+      res.writeHead(200, { 'Content-Type': MIME[extname(file)] ?? 'application/octet-stream', 'Cache-Control': 'no-cache' });
+      res.end(body);
+    } catch {
+      res.writeHead(404).end('not found');
+    }
+  });
+  const port = await freePort();
+  await new Promise<void>((r) => server.listen(port, '127.0.0.1', () => r()));
+  return {
+    url: `http://127.0.0.1:${port}/`,
+    replace: (p: string, body: string) => overrides.set(p, body),
+    close: () => new Promise<void>((r) => { server.closeAllConnections(); server.close(() => r()); }),
+  };
+}
