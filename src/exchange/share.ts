@@ -13,7 +13,13 @@ export async function shareOrDownload(fileName: string, text: string, type: stri
       // TypeError / NotAllowedError: fall through to a download
     }
   }
-  const url = URL.createObjectURL(file);
+  downloadBlob(fileName, file);
+  return 'downloaded';
+}
+
+/** Save a blob through the browser's download (works offline: nothing leaves the phone). */
+export function downloadBlob(fileName: string, blob: Blob): void {
+  const url = URL.createObjectURL(blob);
   const a = document.createElement('a');
   a.href = url;
   a.download = fileName;
@@ -21,5 +27,8 @@ export async function shareOrDownload(fileName: string, text: string, type: stri
   a.click();
   a.remove();
   setTimeout(() => URL.revokeObjectURL(url), 10_000);
-  return 'downloaded';
+}
+
+export function downloadText(fileName: string, text: string, type: string): void {
+  downloadBlob(fileName, new Blob([text], { type }));
 }

@@ -24,7 +24,7 @@ import { useLive, useSettings } from '../data';
 import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm } from '../forms/sample-form';
 import { go } from '../router';
 import { registerDraftSaver } from '../sw-bridge';
-import { downloadText } from '../download';
+import { downloadText } from '../../exchange/share';
 import { NewSiteInline } from './Sites';
 
 const AUTOSAVE_MS = 400;

@@ -7,7 +7,7 @@ import { saveSettings, toStoreError } from '../../store/records';
 import { formatBytes, requestPersistence, type StorageStatus } from '../../store/storage';
 import { SelectField, TextField } from '../components/Field';
 import { useSettings } from '../data';
-import { downloadText } from '../download';
+import { downloadText } from '../../exchange/share';
 import { parseDecimal } from '../forms/parse';
 
 export function SettingsScreen() {
