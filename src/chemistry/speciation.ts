@@ -194,12 +194,11 @@ export function speciate(input: SpeciationInput): Speciation {
 
     let nI = I;
     if (input.fixedIonicStrength === undefined) {
-      let s = 0;
-      for (const ion of CHARGED) {
-        const z = SPECIES[ion].charge;
-        s += z * z * (c[ion] ?? 0);
-      }
-      nI = 0.5 * s;
+      // I = ½ Σ cᵢ zᵢ² over every charged species, written out (this is the hot loop)
+      nI =
+        0.5 *
+        (c.H + c.OH + c.Na + c.K + c.Cl + c.HCO3 + c.NO3 + c.F + c.HSO4 + c.H3SiO4 + c.CaHCO3 + c.MgHCO3 +
+          c.NaCO3 + c.NaSO4 + c.KSO4 + c.CaOH + c.MgOH + 4 * (c.Ca + c.Mg + c.SO4 + c.CO3));
     }
     const change = Math.max(
       rel(ca, nCa), rel(mg, nMg), rel(na, nNa), rel(kk, nK), rel(so4, nSO4), rel(hco3, x), rel(I, nI),
