@@ -12,6 +12,7 @@ import type {
   Site,
 } from '../records/schema';
 import { DEFAULT_SETTINGS } from '../records/defaults';
+import { DEFAULT_PROFILE, profileProblems, type MethodProfile } from '../chemistry';
 
 /** The schemas load on the first write, not with the first screen (they are most of the bundle). */
 let schemas: Promise<typeof import('../records/schema')> | null = null;
@@ -292,4 +293,32 @@ export async function removeDemo(): Promise<number> {
   await tx.done;
   notifyChange({ store: 'samples', ids: [...demoIds] });
   return removed;
+}
+
+// ---------------- method profiles ----------------
+
+/** Store a profile version (id + version is the key: earlier versions stay for the records that used them). */
+export async function saveProfile(profile: MethodProfile): Promise<MethodProfile> {
+  const problems = profileProblems(profile);
+  if (problems.length > 0) throw new StoreError('invalid', `The profile has problems: ${problems.join(' ')}`);
+  try {
+    await (await getDb()).put('profiles', structuredClone(profile));
+  } catch (e) {
+    throw toStoreError(e);
+  }
+  notifyChange({ store: 'profiles', ids: [profile.id] });
+  return profile;
+}
+
+/** The newest version of every stored profile, plus the built-in default. */
+export async function listProfiles(): Promise<MethodProfile[]> {
+  const all = await (await getDb()).getAll('profiles');
+  const newest = new Map<string, MethodProfile>();
+  for (const p of all) if ((newest.get(p.id)?.version ?? 0) < p.version) newest.set(p.id, p);
+  return [DEFAULT_PROFILE, ...[...newest.values()].filter((p) => p.id !== DEFAULT_PROFILE.id)];
+}
+
+/** The active profile by id (its newest version); the default when unknown. */
+export async function getActiveProfile(id: string): Promise<MethodProfile> {
+  return (await listProfiles()).find((p) => p.id === id) ?? DEFAULT_PROFILE;
 }

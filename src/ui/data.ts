@@ -1,7 +1,8 @@
 // Small hooks that read the store and stay fresh when records change (in this tab or another).
 import { useCallback, useEffect, useState } from 'preact/hooks';
 import { onChange } from '../store/connection';
-import { getSettings } from '../store/records';
+import { getActiveProfile, getSettings } from '../store/records';
+import { DEFAULT_PROFILE, type MethodProfile } from '../chemistry';
 import { DEFAULT_SETTINGS } from '../records/defaults';
 import type { Settings } from '../records/schema';
 
@@ -32,4 +33,11 @@ export function useLive<T>(load: () => Promise<T>, deps: unknown[], stores: stri
 export function useSettings(): Settings {
   const { data } = useLive(getSettings, [], ['settings']);
   return data ?? DEFAULT_SETTINGS;
+}
+
+/** The method profile chosen in Settings (its newest version). */
+export function useProfile(): MethodProfile {
+  const settings = useSettings();
+  const { data } = useLive(() => getActiveProfile(settings.profileId), [settings.profileId], ['profiles', 'settings']);
+  return data ?? DEFAULT_PROFILE;
 }

@@ -118,6 +118,22 @@ describe('the field app at phone size, offline', () => {
     await shot(page, 'site-chart');
   });
 
+  it('a project profile: copy the default, change a limit, and the checks use the new version', async () => {
+    await page.goto(served.url + '#/settings');
+    await page.getByRole('button', { name: 'Make an editable copy' }).click();
+    await page.getByLabel('pH slope minimum').fill('90');
+    await page.getByRole('button', { name: 'Save as a new version' }).click();
+    await page.getByText('Saved as version 2.').waitFor();
+    await page.goto(served.url + '#/checks');
+    await page.getByText('Method profile: Project profile (edited copy of the default), version 2.').waitFor();
+    // a 92 % electrode fails the default (95 %) but passes this profile
+    for (const [i, mv] of [[1, '0'], [2, `${(0.92 * 58.17 * 3).toFixed(1)}`], [3, `${(-0.92 * 58.17 * 3.01).toFixed(1)}`]] as const) {
+      await page.getByLabel(`Buffer ${i} reading`).fill(mv);
+      await page.getByLabel(`Buffer ${i} temperature`).fill('20');
+    }
+    await expect(page.getByTestId('check-verdict').textContent()).resolves.toMatch(/^✓ Pass · Slope 92\.\d % of Nernst/);
+  });
+
   it('has no serious or critical accessibility violations (axe-core) on the main screens', async () => {
     for (const hash of ['#/today', '#/new', '#/checks', '#/sites', '#/settings', '#/about']) {
       await page.goto(served.url + hash);

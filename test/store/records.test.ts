@@ -121,3 +121,21 @@ describe('drafts, settings, sites, change notices', () => {
     expect(await listDay('2026-06-14')).toHaveLength(0);
   });
 });
+
+describe('method profiles in the store', () => {
+  it('keeps every version, lists the newest, and refuses a broken profile', async () => {
+    const { saveProfile, listProfiles, getActiveProfile } = await import('../../src/store');
+    const { DEFAULT_PROFILE } = await import('../../src/chemistry');
+    const v1 = { ...structuredClone(DEFAULT_PROFILE), id: 'project-x', version: 1, name: 'Project X' };
+    await saveProfile(v1);
+    const v2 = structuredClone(v1);
+    v2.version = 2;
+    v2.phCalibration.slopeMinPercent = 92;
+    await saveProfile(v2);
+    expect((await listProfiles()).map((p) => `${p.id}@${p.version}`)).toEqual(['bankside-default@1', 'project-x@2']);
+    expect((await getActiveProfile('project-x')).phCalibration.slopeMinPercent).toBe(92);
+    expect((await getActiveProfile('gone')).id).toBe('bankside-default');
+    expect(await (await getDb()).count('profiles')).toBe(2);
+    await expect(saveProfile({ ...v2, version: 3, stabilization: { ...v2.stabilization, readings: 1 } })).rejects.toThrow(/at least 3 readings/);
+  });
+});

@@ -1,10 +1,11 @@
 import { useMemo, useState } from 'preact/hooks';
-import { conductivityStandardCheck, DEFAULT_PROFILE, doAirCalibrationCheck, InputError, phCalibration, pressureToKPa } from '../../chemistry';
+import { conductivityStandardCheck, doAirCalibrationCheck, InputError, phCalibration, pressureToKPa } from '../../chemistry';
 import type { CalibrationEvent } from '../../records/schema';
 import { isoWithOffset, todayLocal } from '../../records/time';
 import { listCalibrationsForDay, listInstruments, saveCalibration, saveInstrument, toStoreError, type CalibrationInput } from '../../store/records';
 import { Choice, SelectField, TextField } from '../components/Field';
-import { useLive, useSettings } from '../data';
+import type { MethodProfile } from '../../chemistry';
+import { useLive, useProfile, useSettings } from '../data';
 import { parseDecimal } from '../forms/parse';
 
 type Param = 'pH' | 'sc' | 'do';
@@ -14,10 +15,10 @@ const num = (raw: string) => {
   return p.ok ? p.value : undefined;
 };
 
-function describe(c: CalibrationEvent): string {
+function describe(c: CalibrationEvent, profile: MethodProfile): string {
   const e = c.entries;
   if (e.parameter === 'pH') {
-    const r = phCalibration(e.buffers, DEFAULT_PROFILE);
+    const r = phCalibration(e.buffers, profile);
     return r.slopePercent !== undefined ? `slope ${r.slopePercent.toFixed(1)} %, offset ${r.offsetMv!.toFixed(1)} mV` : `offset ${r.offsetMv?.toFixed(1)} mV (one buffer)`;
   }
   if (e.parameter === 'sc') return `standard ${e.standardUsPerCm} µS/cm, read ${e.readingUsPerCm} (${((100 * (e.readingUsPerCm - e.standardUsPerCm)) / e.standardUsPerCm).toFixed(1)} %)`;
@@ -27,6 +28,7 @@ function describe(c: CalibrationEvent): string {
 
 export function ChecksScreen() {
   const settings = useSettings();
+  const profile = useProfile();
   const today = todayLocal();
   const instruments = useLive(listInstruments, [], ['instruments']);
   const events = useLive(() => listCalibrationsForDay(today), [today], ['calibrations']);
@@ -53,24 +55,24 @@ export function ChecksScreen() {
           .map((x) => ({ bufferPH: num(x.pH), mV: num(x.mV), tempC: num(x.t) }))
           .filter((x): x is { bufferPH: number; mV: number; tempC: number } => x.bufferPH !== undefined && x.mV !== undefined && x.tempC !== undefined);
         if (b.length === 0) return null;
-        const r = phCalibration(b, DEFAULT_PROFILE);
+        const r = phCalibration(b, profile);
         return { pass: r.pass, text: r.slopePercent !== undefined ? `Slope ${r.slopePercent.toFixed(1)} % of Nernst, offset ${r.offsetMv!.toFixed(1)} mV at pH 7` : `Offset ${r.offsetMv?.toFixed(1)} mV (slope needs a second buffer)`, warnings: r.warnings.map((w) => w.message), entries: { parameter: 'pH' as const, buffers: b } };
       }
       if (param === 'sc') {
         const s = num(scStd), r = num(scRead);
         if (s === undefined || r === undefined) return null;
-        const c = conductivityStandardCheck(s, r, DEFAULT_PROFILE);
+        const c = conductivityStandardCheck(s, r, profile);
         return { pass: c.pass, text: `${c.deviationPercent >= 0 ? '+' : ''}${c.deviationPercent.toFixed(1)} % from the standard (limit ±${c.limitPercent} %)`, warnings: c.pass ? [] : ['Outside the limit: clean the cell, check the standard’s expiry, recalibrate.'], entries: { parameter: 'sc' as const, standardUsPerCm: s, readingUsPerCm: r } };
       }
       const rd = num(doRead), t = num(doTemp), p = num(pressure);
       if (rd === undefined || t === undefined || p === undefined) return null;
       const kPa = pressureToKPa(p, pressureUnit);
-      const c = doAirCalibrationCheck(rd, t, kPa, 0, DEFAULT_PROFILE);
-      return { pass: c.pass, text: `Theoretical ${c.theoreticalMgL.toFixed(2)} mg/L; reading ${c.differenceMgL >= 0 ? '+' : ''}${c.differenceMgL.toFixed(2)} mg/L (limit ±${DEFAULT_PROFILE.doCalibration.absMgL})`, warnings: c.pass ? [] : ['Outside the limit: check the membrane or cap, use true (station) pressure, recalibrate.'], entries: { parameter: 'do' as const, readingMgL: rd, tempC: t, pressureKPa: kPa, salinity: 0 } };
+      const c = doAirCalibrationCheck(rd, t, kPa, 0, profile);
+      return { pass: c.pass, text: `Theoretical ${c.theoreticalMgL.toFixed(2)} mg/L; reading ${c.differenceMgL >= 0 ? '+' : ''}${c.differenceMgL.toFixed(2)} mg/L (limit ±${profile.doCalibration.absMgL})`, warnings: c.pass ? [] : ['Outside the limit: check the membrane or cap, use true (station) pressure, recalibrate.'], entries: { parameter: 'do' as const, readingMgL: rd, tempC: t, pressureKPa: kPa, salinity: 0 } };
     } catch (e) {
       return { pass: false, text: e instanceof InputError ? e.message : String(e), warnings: [], entries: null };
     }
-  }, [param, buffers, scStd, scRead, doRead, doTemp, pressure, pressureUnit]);
+  }, [param, buffers, scStd, scRead, doRead, doTemp, pressure, pressureUnit, profile]);
 
   const save = async () => {
     setErr('');
@@ -78,7 +80,7 @@ export function ChecksScreen() {
     if (!verdict?.entries) return setErr('Enter the readings first.');
     const input: CalibrationInput = {
       instrumentId: selected, parameter: param, time: isoWithOffset(), operator: settings.operator, kind: 'calibration',
-      entries: verdict.entries, pass: verdict.pass, profileId: DEFAULT_PROFILE.id, profileVersion: DEFAULT_PROFILE.version,
+      entries: verdict.entries, pass: verdict.pass, profileId: profile.id, profileVersion: profile.version,
     };
     try {
       await saveCalibration(input, settings.operator || 'field crew');
@@ -90,8 +92,8 @@ export function ChecksScreen() {
 
   return (
     <section>
-      <p class="lead">Check each meter before and after sampling. Samples without a passing check within {DEFAULT_PROFILE.calibrationWindowHours} h are marked on the day list.</p>
-      <p class="muted">Method profile: {DEFAULT_PROFILE.name}, version {DEFAULT_PROFILE.version}.</p>
+      <p class="lead">Check each meter before and after sampling. Samples without a passing check within {profile.calibrationWindowHours} h are marked on the day list.</p>
+      <p class="muted">Method profile: {profile.name}, version {profile.version}.</p>
       {instrumentList.length > 0 ? (
         <SelectField id="instrument" label="Meter" value={selected} onChange={setInstrumentId}>
           {instrumentList.map((i) => <option key={i.id} value={i.id}>{i.name}{i.serial ? ` (${i.serial})` : ''}</option>)}
@@ -153,7 +155,7 @@ export function ChecksScreen() {
           {(events.data ?? []).map((c) => (
             <li key={c.id} class="card">
               <span class="card-title">{new Date(c.time).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })} · {c.parameter} · {c.pass ? '✓ pass' : '✗ fail'}</span>
-              <span class="muted">{describe(c)} · {instrumentList.find((i) => i.id === c.instrumentId)?.name ?? c.instrumentId} · profile {c.profileId} v{c.profileVersion}</span>
+              <span class="muted">{describe(c, profile)} · {instrumentList.find((i) => i.id === c.instrumentId)?.name ?? c.instrumentId} · profile {c.profileId} v{c.profileVersion}</span>
             </li>
           ))}
         </ul>

@@ -20,7 +20,7 @@ import { RepeatedReadings } from '../components/Readings';
 import { ResultsPanel } from '../components/Results';
 import { StateBadge } from '../components/State';
 import { TitrationPlot } from '../components/TitrationPlot';
-import { useLive, useSettings } from '../data';
+import { useLive, useProfile, useSettings } from '../data';
 import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm } from '../forms/sample-form';
 import { go } from '../router';
 import { registerDraftSaver } from '../sw-bridge';
@@ -36,6 +36,7 @@ function draftIdFor(sampleId: string | undefined): string {
 /** New sample (#/new) or an existing one (#/sample/<id>). Every keystroke is saved as a draft. */
 export function SampleEditor({ sampleId }: { sampleId?: string }) {
   const settings = useSettings();
+  const profile = useProfile();
   const sites = useLive(listSites, [], ['sites']);
   const [form, setForm] = useState<SampleForm | null>(null);
   const [restoredAt, setRestoredAt] = useState('');
@@ -106,7 +107,7 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
 
   const parsed = useMemo(() => (form ? formToSample(form) : null), [form]);
   // formToSample fills every default the derivation reads (kits, ions, alpha), so no schema pass is needed here.
-  const derived = useMemo(() => (parsed ? deriveSample({ field: parsed.record.field as Sample['field'], pressure: parsed.record.pressure, lab: stored?.lab ?? [] }, settings) : null), [parsed, settings, stored]);
+  const derived = useMemo(() => (parsed ? deriveSample({ field: parsed.record.field as Sample['field'], pressure: parsed.record.pressure, lab: stored?.lab ?? [] }, settings, profile) : null), [parsed, settings, stored, profile]);
 
   if (!form || !parsed || !derived) return <p class="muted">Opening…</p>;
   const e = parsed.errors;
@@ -119,7 +120,7 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
     if (need.length > 0) return;
     setSaving(true);
     try {
-      const rec = await saveSample({ ...parsed.record, ...(stored ? { createdAt: stored.createdAt, lab: stored.lab, instrumentIds: stored.instrumentIds, demo: stored.demo } : {}) }, settings.operator || 'field crew');
+      const rec = await saveSample({ ...parsed.record, profileId: profile.id, profileVersion: profile.version, ...(stored ? { createdAt: stored.createdAt, lab: stored.lab, instrumentIds: stored.instrumentIds, demo: stored.demo } : {}) }, settings.operator || 'field crew');
       dirty.current = false;
       await deleteDraft(draftId);
       go(`#/today?date=${rec.localDate}&saved=${rec.id}`);

@@ -9,7 +9,7 @@ import { todayLocal } from '../../records/time';
 import { createBackup } from '../../store/backup';
 import { listCalibrations, listSamplesBetween, listSamplesForSite, listSites } from '../../store/records';
 import { Choice, SelectField, TextField } from '../components/Field';
-import { useLive, useSettings } from '../data';
+import { useLive, useProfile, useSettings } from '../data';
 import { LabImport } from './LabImport';
 import { requestBackgroundSync } from '../outbox-triggers';
 
@@ -24,6 +24,7 @@ const STATUS_WORDS: Record<OutboxItem['status'], string> = {
 
 export function SendScreen() {
   const settings = useSettings();
+  const profile = useProfile();
   const sites = useLive(listSites, [], ['sites']);
   const outbox = useLive(listOutbox, [], ['outbox']);
   const log = useLive(listExportLog, [], ['exportLog']);
@@ -48,7 +49,7 @@ export function SendScreen() {
       const samples = await pick();
       if (samples.length === 0) return setErr('No samples in that selection.');
       const allSites = await listSites();
-      const ctx = { samples, sites: allSites, settings };
+      const ctx = { samples, sites: allSites, settings, profile };
       const name = (suffix: string, ext: string) => `bankside_${label}_${suffix}.${ext}`;
       let file: { name: string; text: string; type: string };
       switch (kind) {
@@ -76,7 +77,7 @@ export function SendScreen() {
     setErr('');
     const samples = await pick();
     if (samples.length === 0) return setErr('No samples in that selection.');
-    const ctx = { samples, sites: await listSites(), settings };
+    const ctx = { samples, sites: await listSites(), settings, profile };
     const fileName = `bankside_${label}_samples.csv`;
     await enqueueUpload({ fileName, contentType: 'text/csv', body: wideCsv(ctx), sampleIds: samples.map((s) => s.id) });
     await logExport('upload', fileName, samples.map((s) => s.id));

@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'preact/hooks';
-import { DEFAULT_PROFILE } from '../../chemistry';
+import { ProfileEditor } from './ProfileEditor';
 import { loadDemo, removeDemo } from '../../demo/load';
 import type { Settings } from '../../records/schema';
 import { createBackup, restoreBackup, BackupError } from '../../store/backup';
@@ -54,14 +54,15 @@ export function SettingsScreen() {
       <SelectField id="pUnit" label="Usual pressure unit" value={s.units.pressure} onChange={(v) => setS({ ...s, units: { ...s.units, pressure: v as Settings['units']['pressure'] } })}>
         <option value="hPa">hPa</option><option value="kPa">kPa</option><option value="mmHg">mmHg</option>
       </SelectField>
-      <h2>Method profile</h2>
-      <p>{DEFAULT_PROFILE.name}, version {DEFAULT_PROFILE.version}. {DEFAULT_PROFILE.notes}</p>
       <h2>Office</h2>
       <TextField id="endpoint" label="Office upload address (HTTPS)" type="url" value={s.office.endpoint} onInput={(v) => setS({ ...s, office: { ...s.office, endpoint: v } })} />
       <TextField id="token" label="Access token (optional)" type="password" value={s.office.token} onInput={(v) => setS({ ...s, office: { ...s.office, token: v } })} />
       {err && <p class="field-error" role="alert">{err}</p>}
       {msg && <p class="notice" role="status">{msg}</p>}
       <button type="button" class="btn btn-primary btn-block" onClick={save}>Save settings</button>
+
+      <h2>Method profile</h2>
+      <ProfileEditor />
 
       <h2>Storage on this phone</h2>
       <p data-testid="storage-status">

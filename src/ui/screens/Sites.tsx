@@ -4,7 +4,7 @@ import type { Site } from '../../records/schema';
 import { getSite, listSamplesForSite, listSites, saveSite, toStoreError } from '../../store/records';
 import { Choice, TextField } from '../components/Field';
 import { StateBadge } from '../components/State';
-import { useLive, useSettings } from '../data';
+import { useLive, useProfile, useSettings } from '../data';
 import { parseDecimal } from '../forms/parse';
 
 interface Position {
@@ -122,9 +122,10 @@ export function SitesScreen() {
 /** One site: its samples over time, with calcite SI (band) and log pCO₂ on a chart loaded on demand. */
 export function SiteDetail({ siteId }: { siteId: string }) {
   const settings = useSettings();
+  const profile = useProfile();
   const site = useLive(() => getSite(siteId), [siteId], ['sites']);
   const samples = useLive(() => listSamplesForSite(siteId), [siteId], ['samples']);
-  const rows = (samples.data ?? []).map((s) => ({ s, d: deriveSample(s, settings) }));
+  const rows = (samples.data ?? []).map((s) => ({ s, d: deriveSample(s, settings, profile) }));
   const chartRef = useRef<HTMLDivElement>(null);
   const [chartError, setChartError] = useState('');
   useEffect(() => {

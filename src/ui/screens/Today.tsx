@@ -3,7 +3,7 @@ import { todayLocal } from '../../records/time';
 import { listCalibrations, listDay, listSites, restoreSample } from '../../store/records';
 import { loadDemo } from '../../demo/load';
 import { StateBadge } from '../components/State';
-import { useLive, useSettings } from '../data';
+import { useLive, useProfile, useSettings } from '../data';
 import { uncoveredParameters } from '../coverage';
 import type { Route } from '../router';
 import { go } from '../router';
@@ -20,6 +20,7 @@ const PARAM_WORDS: Record<string, string> = { pH: 'pH', sc: 'conductance', do: '
 export function TodayScreen({ route }: { route: Route }) {
   const date = route.query.get('date') || todayLocal();
   const settings = useSettings();
+  const profile = useProfile();
   const samples = useLive(() => listDay(date), [date], ['samples']);
   const sites = useLive(listSites, [], ['sites']);
   const cals = useLive(listCalibrations, [], ['calibrations']);
@@ -57,10 +58,10 @@ export function TodayScreen({ route }: { route: Route }) {
       ) : (
         <ul class="cards" aria-label="Samples of the day">
           {list.map((s) => {
-            const d = deriveSample(s, settings);
+            const d = deriveSample(s, settings, profile);
             const a = d.analysis;
             const site = siteById.get(s.siteId);
-            const uncovered = uncoveredParameters(s, cals.data ?? []);
+            const uncovered = uncoveredParameters(s, cals.data ?? [], profile);
             const nWarn = d.warnings.length + uncovered.length;
             return (
               <li key={s.id}>
