@@ -9,6 +9,7 @@ import {
   getSample,
   history,
   listSites,
+  loadSchemas,
   putDraft,
   restoreSample,
   saveSample,
@@ -51,6 +52,7 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
 
   // Load: an unsaved draft wins over the stored record (nothing typed is lost).
   useEffect(() => {
+    void loadSchemas(); // the draft's validation is ready before the first keystroke needs it
     let live = true;
     (async () => {
       const [draft, existing] = await Promise.all([getDraft(draftId), sampleId ? getSample(sampleId) : Promise.resolve(undefined)]);
@@ -71,10 +73,21 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
     };
   }, [draftId]);
 
-  const flush = async () => {
-    if (!dirty.current || !formRef.current) return;
-    dirty.current = false;
-    await putDraft({ id: draftId, kind: 'sample', ...(sampleId ? { targetId: sampleId } : {}), form: formRef.current as unknown as Record<string, unknown> });
+  // Saves are chained: whoever asks for a flush (a timer, the page hiding, an app update, another
+  // tab's upgrade) waits for any save already under way, so nothing closes the db mid-save.
+  const chain = useRef<Promise<void>>(Promise.resolve());
+  const flush = (): Promise<void> => {
+    chain.current = chain.current.catch(() => undefined).then(async () => {
+      if (!dirty.current || !formRef.current) return;
+      dirty.current = false;
+      try {
+        await putDraft({ id: draftId, kind: 'sample', ...(sampleId ? { targetId: sampleId } : {}), form: formRef.current as unknown as Record<string, unknown> });
+      } catch (e) {
+        dirty.current = true;
+        throw e;
+      }
+    });
+    return chain.current;
   };
 
   // Debounced autosave on every change, and an immediate save when the page hides or updates.
