@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { deriveSample } from '../../records/derive';
+import { isoWithOffset } from '../../records/time';
 import type { Sample } from '../../records/schema';
 import { setBeforeClose } from '../../store/connection';
 import {
@@ -39,7 +40,9 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
   const settings = useSettings();
   const profile = useProfile();
   const sites = useLive(listSites, [], ['sites']);
-  const [form, setForm] = useState<SampleForm | null>(null);
+  // A new sample's form is usable at once (no wait for storage); an existing one waits for its record.
+  const [form, setForm] = useState<SampleForm | null>(() => (sampleId ? null : emptyForm()));
+  const [olderDraft, setOlderDraft] = useState<{ form: SampleForm; at: string } | null>(null);
   const [restoredAt, setRestoredAt] = useState('');
   const [saveError, setSaveError] = useState<StoreError | null>(null);
   const [missing, setMissing] = useState<string[]>([]);
@@ -59,14 +62,17 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
       if (!live) return;
       setStored(existing);
       if (draft) {
-        setForm({ ...emptyForm(), ...(draft.form as Partial<SampleForm>) } as SampleForm);
-        setRestoredAt(draft.updatedAt);
+        const restored = { ...emptyForm(), ...(draft.form as Partial<SampleForm>) } as SampleForm;
+        if (dirty.current) {
+          // The crew started typing before the old draft was read: keep both, under separate keys.
+          await putDraft({ id: `${draftId}:${draft.updatedAt}`, kind: 'sample', form: draft.form });
+          setOlderDraft({ form: restored, at: draft.updatedAt });
+        } else {
+          setForm(restored);
+          setRestoredAt(draft.updatedAt);
+        }
       } else if (existing) setForm(formFromSample(existing));
-      else {
-        const f = emptyForm();
-        f.crew = settings.operator;
-        setForm(f);
-      }
+      else if (!dirty.current) setForm((f) => (f && settings.operator && !f.crew ? { ...f, crew: settings.operator } : f));
     })().catch(() => live && setForm(emptyForm()));
     return () => {
       live = false;
@@ -162,6 +168,12 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
           <button type="button" class="linkish" onClick={async () => { await deleteDraft(draftId); setRestoredAt(''); setForm(stored ? formFromSample(stored) : emptyForm()); }}>
             Discard it
           </button>
+        </p>
+      )}
+      {olderDraft && (
+        <p class="notice" role="status">
+          An unsaved entry from {new Date(olderDraft.at).toLocaleTimeString()} was also found.{' '}
+          <button type="button" class="linkish" onClick={async () => { if (form) await putDraft({ id: `${draftId}:${isoWithOffset()}`, kind: 'sample', form: form as unknown as Record<string, unknown> }); dirty.current = true; setForm(olderDraft.form); setOlderDraft(null); }}>Open it instead</button>
         </p>
       )}
       {stored?.deletedAt && (
