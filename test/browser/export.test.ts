@@ -1,3 +1,5 @@
+// Expected values come from the invented demo scenario and our own file format; no published reference
+// values are checked here (the chemistry's sources are named in test/chemistry).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { readFileSync } from 'node:fs';

@@ -1,3 +1,5 @@
+// Numbers here are counts of requests and stored copies, and the Nernst slope 58.17 mV/pH at 20 °C
+// (the formula's value; source: CODATA constants, see test/chemistry/calibration.test.ts).
 // Fault injection in real Chromium: an app update while a sample is half-typed, an office server
 // that fails in every way, a full disk, and a second tab upgrading the database.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

@@ -1,3 +1,5 @@
+// Source of expected values: curves computed from the carbonate equilibria with Plummer & Busenberg (1982)
+// constants; applicability rules from the USGS National Field Manual A6.6 (read); endpoint range Barnes (1964).
 import { describe, expect, it } from 'vitest';
 import { InputError, titrationAlkalinity, MG_CACO3_PER_MEQ } from '../../src/chemistry';
 import { range, titrationCurve } from './titration-curve';

@@ -1,3 +1,4 @@
+// No reference values: every count is derived from the generated input itself (source: this test).
 // Fuzzing the import paths (seeded, bounded): damaged, huge, wrongly encoded or wrongly shaped
 // input must give a clear error and change nothing.
 import { beforeEach, describe, expect, it } from 'vitest';

@@ -1,3 +1,4 @@
+// Expected values describe the invented demo scenario (source: src/demo/scenario.ts), not real data.
 import { beforeEach, describe, expect, it } from 'vitest';
 import { loadDemo } from '../../src/demo/load';
 import { listDay, listSites, listCalibrationsForDay, removeDemo } from '../../src/store';

@@ -1,3 +1,4 @@
+// Parsing rules are our own (source: src/ui/forms/parse.ts); no published values are involved.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { parseDecimal } from '../../src/ui/forms/parse';
