@@ -55,7 +55,18 @@ export function SettingsScreen() {
         <option value="hPa">hPa</option><option value="kPa">kPa</option><option value="mmHg">mmHg</option>
       </SelectField>
       <h2>Office</h2>
-      <TextField id="endpoint" label="Office upload address (HTTPS)" type="url" value={s.office.endpoint} onInput={(v) => setS({ ...s, office: { ...s.office, endpoint: v } })} />
+      <TextField
+        id="endpoint"
+        label="Office upload address (HTTPS)"
+        type="url"
+        value={s.office.endpoint}
+        onInput={(v) => setS({ ...s, office: { ...s.office, endpoint: v } })}
+        error={/^http:\/\/(?!(localhost|127\.0\.0\.1)[:/])/i.test(s.office.endpoint) ? 'This address is not encrypted (http): records and the token would cross the network readable. Use https.' : undefined}
+      />
+      <SelectField id="method" label="How the office receives" value={s.office.method} onChange={(v) => setS({ ...s, office: { ...s.office, method: v as Settings['office']['method'] } })}>
+        <option value="POST">Office web address (POST with a batch key)</option>
+        <option value="PUT">Storage link, pre-signed (PUT; put {'{key}'} where the file name goes)</option>
+      </SelectField>
       <TextField id="token" label="Access token (optional)" type="password" value={s.office.token} onInput={(v) => setS({ ...s, office: { ...s.office, token: v } })} />
       {err && <p class="field-error" role="alert">{err}</p>}
       {msg && <p class="notice" role="status">{msg}</p>}
