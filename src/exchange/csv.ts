@@ -2,7 +2,7 @@
 // input with its unit in the header, computed indicators with the engine version, and no cell
 // that a spreadsheet would run as a formula.
 import Papa from 'papaparse';
-import { ENGINE_VERSION, type MethodProfile } from '../chemistry';
+import { ENGINE_VERSION, median, type MethodProfile } from '../chemistry';
 import { deriveSample, type Derived } from '../records/derive';
 import type { CalibrationEvent, Sample, Settings, Site } from '../records/schema';
 
@@ -49,12 +49,12 @@ interface Col {
   get: (x: { s: Sample; site?: Site | undefined; d: Derived }) => Cell;
 }
 
-const med = (vals: Array<{ value: number }> | undefined) => {
-  if (!vals || vals.length === 0) return undefined;
-  const s = vals.map((v) => v.value).sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1]! + s[m]!) / 2;
-};
+/**
+ * The value the crew reports for a repeated reading: the stabilization median derive() used, so the
+ * raw columns agree with the computed ones; the median of all readings if derivation stopped early.
+ */
+const reported = (d: Derived, key: keyof Derived['stability'], vals: Array<{ value: number }> | undefined) =>
+  d.stability[key]?.median ?? (vals && vals.length > 0 ? median(vals.map((v) => v.value)) : undefined);
 
 const kit = (s: Sample, analyte: string) => s.field.kits.find((k) => k.analyte === analyte);
 
@@ -78,17 +78,17 @@ export const WIDE_COLUMNS: Col[] = [
   { h: 'qc_type', get: ({ s }) => s.qc.type },
   { h: 'qc_parent_id', get: ({ s }) => s.qc.parentId },
   // raw inputs, as entered
-  { h: 'water_temp_degC', get: ({ s, d }) => d.stability.temperature?.median ?? med(s.field.tempC?.values) },
+  { h: 'water_temp_degC', get: ({ s, d }) => reported(d, 'temperature', s.field.tempC?.values) },
   { h: 'water_temp_readings_n', get: ({ s }) => s.field.tempC?.values.length },
   { h: 'conductance_mode', get: ({ s }) => s.field.conductance?.mode },
-  { h: 'ec_raw_uS_cm', get: ({ s }) => (s.field.conductance?.mode === 'ec' ? med(s.field.conductance.values) : undefined) },
+  { h: 'ec_raw_uS_cm', get: ({ s, d }) => (s.field.conductance?.mode === 'ec' ? reported(d, 'sc', s.field.conductance.values) : undefined) },
   { h: 'ec_temp_degC', get: ({ s }) => (s.field.conductance?.mode === 'ec' ? s.field.conductance.tempC : undefined) },
   { h: 'ec_alpha_per_degC', get: ({ s }) => (s.field.conductance?.mode === 'ec' ? s.field.conductance.alpha : undefined) },
-  { h: 'sc_field_uS_cm_25C', get: ({ s }) => (s.field.conductance?.mode === 'sc' ? med(s.field.conductance.values) : undefined) },
-  { h: 'ph_field', get: ({ s, d }) => d.stability.pH?.median ?? med(s.field.pH?.values) },
+  { h: 'sc_field_uS_cm_25C', get: ({ s, d }) => (s.field.conductance?.mode === 'sc' ? reported(d, 'sc', s.field.conductance.values) : undefined) },
+  { h: 'ph_field', get: ({ s, d }) => reported(d, 'pH', s.field.pH?.values) },
   { h: 'ph_readings_n', get: ({ s }) => s.field.pH?.values.length },
   { h: 'ph_stable', get: ({ d }) => d.stability.pH?.stable },
-  { h: 'do_field', get: ({ s }) => med(s.field.do?.values) },
+  { h: 'do_field', get: ({ s, d }) => reported(d, 'do', s.field.do?.values) },
   { h: 'do_field_unit', get: ({ s }) => s.field.do?.unit },
   { h: 'pressure', get: ({ s }) => s.pressure?.value },
   { h: 'pressure_unit', get: ({ s }) => s.pressure?.unit },
@@ -172,10 +172,10 @@ export function longCsv(ctx: ExportContext, opts: { bom?: boolean } = {}): strin
       out.push([s.id, site?.code, s.time, parameter, value, ucum, origin, method, qualifier]);
     };
     const q = s.qualifiers.join('; ');
-    add('water_temperature', d.stability.temperature?.median ?? med(s.field.tempC?.values), 'Cel', 'field', 'median of stable readings', q);
-    if (s.field.conductance?.mode === 'ec') add('conductivity_raw', med(s.field.conductance.values), 'uS/cm', 'field', `at ${s.field.conductance.tempC ?? 'water'} Cel, alpha ${s.field.conductance.alpha}`, q);
+    add('water_temperature', reported(d, 'temperature', s.field.tempC?.values), 'Cel', 'field', 'median of stable readings', q);
+    if (s.field.conductance?.mode === 'ec') add('conductivity_raw', reported(d, 'sc', s.field.conductance.values), 'uS/cm', 'field', `at ${s.field.conductance.tempC ?? 'water'} Cel, alpha ${s.field.conductance.alpha}`, q);
     add('specific_conductance_25C', d.input.scUsPerCm ?? undefined, 'uS/cm', s.field.conductance?.mode === 'sc' ? 'field' : 'computed', s.field.conductance?.mode === 'sc' ? 'meter-compensated' : 'Standard Methods 2510 linear', q);
-    add('pH', d.stability.pH?.median ?? med(s.field.pH?.values), '[pH]', 'field', 'median of stable readings', q);
+    add('pH', reported(d, 'pH', s.field.pH?.values), '[pH]', 'field', 'median of stable readings', q);
     add('dissolved_oxygen', d.doMgL, 'mg/L', s.field.do?.unit === 'mg/L' ? 'field' : 'computed', 'Benson & Krause', q);
     add('dissolved_oxygen_saturation', d.doPercent, '%', s.field.do?.unit === '%' ? 'field' : 'computed', 'Benson & Krause', q);
     add('alkalinity_as_CaCO3', d.input.alkalinityMgLCaCO3 ?? undefined, 'mg/L', s.field.alkalinity?.kind === 'titration' ? 'computed' : 'field', s.field.alkalinity?.kind === 'titration' ? `titration, ${d.titration?.method}` : 'entered', q);

@@ -43,6 +43,15 @@ describe('wide CSV (one row per sample)', () => {
     const rep = rows.find((x) => x.qc_type === 'replicate')!;
     expect(rep.qc_parent_id).toBe(samples[0]!.id);
   });
+  it('raw reading columns report the stabilization median, so they agree with the computed columns', () => {
+    const s = structuredClone(samples[1]!);
+    const t = s.field.conductance!.values[0]!.time;
+    // seven readings: the first two drift, the last five are stable (median 400)
+    s.field.conductance!.values = [430, 415, 401, 400, 399, 400, 401].map((value) => ({ time: t, value }));
+    const { rows } = parseCsv(wideCsv({ ...ctx, samples: [s] }));
+    expect(rows[0]!.sc_field_uS_cm_25C).toBe('400');
+    expect(rows[0]!.sc_uS_cm_25C).toBe('400');
+  });
   it('adds a BOM only when asked (for spreadsheets) and parses either way', () => {
     const withBom = wideCsv(ctx, { bom: true });
     expect(withBom.charCodeAt(0)).toBe(0xfeff);
