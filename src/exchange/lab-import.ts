@@ -4,7 +4,7 @@ import type { LabResult, Sample } from '../records/schema';
 import { isoWithOffset } from '../records/time';
 import { getSample, saveSample } from '../store/records';
 import { parseCsv } from './csv';
-import { parseDecimalLoose } from './numbers';
+import { parseDecimalLoose } from '../records/numbers';
 
 export interface LabMapping {
   sampleId: string;

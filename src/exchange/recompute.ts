@@ -2,7 +2,7 @@
 // joined with a lab-results CSV), with the same engine the phones use. Runs in Node.
 import { analyzeSample, dataChecks, DEFAULT_PROFILE, ENGINE_VERSION, InputError, specificConductance, type AnalyzeOptions, type SampleInput } from '../chemistry';
 import { parseCsv, toCsv, unsafeCell, type Cell } from './csv';
-import { parseDecimalLoose } from './numbers';
+import { parseDecimalLoose } from '../records/numbers';
 
 /** Lab parameter names (lower case, as labs commonly write them) → engine input field, mg/L. */
 const LAB_PARAMS: Record<string, keyof SampleInput> = {

@@ -1,7 +1,5 @@
 import type { ComponentChildren } from 'preact';
 
-let uid = 0;
-export const nextId = (p: string) => `${p}-${++uid}`;
 
 interface TextFieldProps {
   id: string;

@@ -1,4 +1,5 @@
 // Parsing what a gloved thumb typed: decimal comma or point, no silent zeros, errors in words.
+import { parseDecimalLoose } from '../../records/numbers';
 
 export interface NumberRule {
   label: string;
@@ -12,19 +13,15 @@ export interface NumberRule {
 
 export type Parsed = { ok: true; value: number | undefined } | { ok: false; error: string };
 
-const DECIMAL = /^[+-]?(\d+([.,]\d*)?|[.,]\d+)([eE][+-]?\d+)?$/;
-
 /**
  * "7,85" and "7.85" are both 7.85; "" is missing (an error only when required); "1.234,5",
  * "7..8", "0x10", "abc" are refused with a message, never read as 0.
  */
 export function parseDecimal(raw: string | undefined | null, rule: NumberRule): Parsed {
-  const s = (raw ?? '').trim().replace(/\s+/g, '').replace(/^−/, '-');
   const unit = rule.unit ? ` ${rule.unit}` : '';
-  if (s === '') return rule.required ? { ok: false, error: `Enter ${rule.label}.` } : { ok: true, value: undefined };
-  if (!DECIMAL.test(s)) return { ok: false, error: `“${raw}” is not a number. Use digits with one decimal point or comma.` };
-  const v = Number(s.replace(',', '.'));
-  if (!Number.isFinite(v)) return { ok: false, error: `“${raw}” is not a number.` };
+  if ((raw ?? '').trim() === '') return rule.required ? { ok: false, error: `Enter ${rule.label}.` } : { ok: true, value: undefined };
+  const v = parseDecimalLoose(raw ?? '');
+  if (v === undefined) return { ok: false, error: `“${raw}” is not a number. Use digits with one decimal point or comma.` };
   if (rule.positive && v <= 0) return { ok: false, error: `${cap(rule.label)} must be more than 0${unit}.` };
   if (rule.min !== undefined && v < rule.min) return { ok: false, error: `${cap(rule.label)} ${v}${unit} is below ${rule.min}${unit}: check the reading and its unit.` };
   if (rule.max !== undefined && v > rule.max) return { ok: false, error: `${cap(rule.label)} ${v}${unit} is above ${rule.max}${unit}: check the reading and its unit.` };
