@@ -7,7 +7,7 @@ import { useLive, useProfile, useSettings } from '../data';
 import { uncoveredParameters } from '../coverage';
 import type { Route } from '../router';
 import { go } from '../router';
-import { useState } from 'preact/hooks';
+import { useMemo, useState } from 'preact/hooks';
 
 function shiftDate(date: string, days: number): string {
   const d = new Date(`${date}T12:00:00`);
@@ -27,6 +27,11 @@ export function TodayScreen({ route }: { route: Route }) {
   const [busy, setBusy] = useState('');
   const siteById = new Map((sites.data ?? []).map((s) => [s.id, s]));
   const list = samples.data ?? [];
+  // Derive each sample once per change of data, settings or profile, not on every re-render.
+  const rows = useMemo(
+    () => list.map((s) => ({ s, d: deriveSample(s, settings, profile), uncovered: uncoveredParameters(s, cals.data ?? [], profile) })),
+    [list, settings, profile, cals.data],
+  );
   const deleted = route.query.get('deleted');
   const isToday = date === todayLocal();
   return (
@@ -57,11 +62,9 @@ export function TodayScreen({ route }: { route: Route }) {
         </div>
       ) : (
         <ul class="cards" aria-label="Samples of the day">
-          {list.map((s) => {
-            const d = deriveSample(s, settings, profile);
+          {rows.map(({ s, d, uncovered }) => {
             const a = d.analysis;
             const site = siteById.get(s.siteId);
-            const uncovered = uncoveredParameters(s, cals.data ?? [], profile);
             const nWarn = d.warnings.length + uncovered.length;
             return (
               <li key={s.id}>
