@@ -90,7 +90,8 @@ if (!process.argv.includes('--engine-only')) {
       const at10k = n === 10000;
       row('store', `save one sample, p95 (${n.toLocaleString('en')} stored)`, r.saveP95, 'ms', at10k ? '≤ 20 ms' : '', at10k ? r.saveP95 <= 20 : null);
       row('store', `list one day (30 samples), median (${n.toLocaleString('en')} stored)`, r.listDayMedian, 'ms', at10k ? '≤ 100 ms' : '', at10k ? r.listDayMedian <= 100 : null);
-      row('export', `samples CSV of ${n.toLocaleString('en')} samples (read, derive, write)`, r.exportMs, 'ms', at10k ? '≤ 1000 ms' : '', at10k ? r.exportMs <= 1000 : null);
+      row('export', `samples CSV of ${n.toLocaleString('en')}, cold (read, derive, write)`, r.exportMs, 'ms', at10k ? '≤ 1000 ms' : '', at10k ? r.exportMs <= 1000 : null);
+      row('export', `samples CSV of ${n.toLocaleString('en')}, warm (derived cache)`, r.exportWarmMs, 'ms', at10k ? '≤ 300 ms' : '', at10k ? r.exportWarmMs <= 300 : null);
     }
     const { coldStart } = await import('./coldstart.mjs');
     const cs = await coldStart(browser);

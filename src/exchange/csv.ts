@@ -3,7 +3,8 @@
 // that a spreadsheet would run as a formula.
 import Papa from 'papaparse';
 import { ENGINE_VERSION, median, type MethodProfile } from '../chemistry';
-import { deriveSample, type Derived } from '../records/derive';
+import type { Derived } from '../records/derive';
+import { derivedFor } from '../records/derived-cache';
 import type { CalibrationEvent, Sample, Settings, Site } from '../records/schema';
 
 export type Cell = string | number | boolean | null | undefined;
@@ -154,7 +155,7 @@ export interface ExportContext {
 
 function derivedRows(ctx: ExportContext) {
   const siteById = new Map(ctx.sites.map((s) => [s.id, s]));
-  return ctx.samples.map((s) => ({ s, site: siteById.get(s.siteId), d: deriveSample(s, ctx.settings, ctx.profile) }));
+  return ctx.samples.map((s) => ({ s, site: siteById.get(s.siteId), d: derivedFor(s, ctx.settings, ctx.profile) }));
 }
 
 /** One row per sample. */

@@ -1,6 +1,6 @@
 // Sites and samples as GeoJSON (RFC 7946): WGS84 longitude/latitude. A site recorded in another
 // datum gets a null geometry (RFC 7946 allows only WGS84) and keeps its datum in properties.
-import { deriveSample } from '../records/derive';
+import { derivedFor } from '../records/derived-cache';
 import type { Sample, Settings, Site } from '../records/schema';
 
 type Geometry = { type: 'Point'; coordinates: [number, number] } | null;
@@ -28,7 +28,7 @@ export function samplesGeoJson(samples: Sample[], sites: Site[], settings: Pick<
   return JSON.stringify({
     type: 'FeatureCollection',
     features: samples.map((s) => {
-      const d = deriveSample(s, settings);
+      const d = derivedFor(s, settings);
       const a = d.analysis;
       return {
         type: 'Feature',

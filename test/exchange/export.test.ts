@@ -48,6 +48,7 @@ describe('wide CSV (one row per sample)', () => {
     const t = s.field.conductance!.values[0]!.time;
     // seven readings: the first two drift, the last five are stable (median 400)
     s.field.conductance!.values = [430, 415, 401, 400, 399, 400, 401].map((value) => ({ time: t, value }));
+    s.revision += 1; // an edit, as the store records it (derived results are cached per revision)
     const { rows } = parseCsv(wideCsv({ ...ctx, samples: [s] }));
     expect(rows[0]!.sc_field_uS_cm_25C).toBe('400');
     expect(rows[0]!.sc_uS_cm_25C).toBe('400');

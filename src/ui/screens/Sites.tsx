@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'preact/hooks';
-import { deriveSample } from '../../records/derive';
+import { derivedFor } from '../../records/derived-cache';
 import type { Site } from '../../records/schema';
 import { getSite, listSamplesForSite, listSites, saveSite, toStoreError } from '../../store/records';
 import { Choice, TextField } from '../components/Field';
@@ -125,7 +125,7 @@ export function SiteDetail({ siteId }: { siteId: string }) {
   const profile = useProfile();
   const site = useLive(() => getSite(siteId), [siteId], ['sites']);
   const samples = useLive(() => listSamplesForSite(siteId), [siteId], ['samples']);
-  const rows = (samples.data ?? []).map((s) => ({ s, d: deriveSample(s, settings, profile) }));
+  const rows = (samples.data ?? []).map((s) => ({ s, d: derivedFor(s, settings, profile) }));
   const chartRef = useRef<HTMLDivElement>(null);
   const [chartError, setChartError] = useState('');
   useEffect(() => {

@@ -1,4 +1,4 @@
-import { deriveSample } from '../../records/derive';
+import { derivedFor } from '../../records/derived-cache';
 import { todayLocal } from '../../records/time';
 import { listCalibrations, listDay, listSites, restoreSample } from '../../store/records';
 import { loadDemo } from '../../demo/load';
@@ -29,7 +29,7 @@ export function TodayScreen({ route }: { route: Route }) {
   const list = samples.data ?? [];
   // Derive each sample once per change of data, settings or profile, not on every re-render.
   const rows = useMemo(
-    () => list.map((s) => ({ s, d: deriveSample(s, settings, profile), uncovered: uncoveredParameters(s, cals.data ?? [], profile) })),
+    () => list.map((s) => ({ s, d: derivedFor(s, settings, profile), uncovered: uncoveredParameters(s, cals.data ?? [], profile) })),
     [list, settings, profile, cals.data],
   );
   const deleted = route.query.get('deleted');
