@@ -47,7 +47,7 @@ export function parseCsv(text: string): { header: string[]; rows: Array<Record<s
 /** A column of the wide file: header (with unit) and how to read it from a sample. */
 interface Col {
   h: string;
-  get: (x: { s: Sample; site?: Site | undefined; d: Derived }) => Cell;
+  get: (x: { s: Sample; site?: Site | undefined; d: Derived; parentCode?: string | undefined }) => Cell;
 }
 
 /**
@@ -61,6 +61,7 @@ const kit = (s: Sample, analyte: string) => s.field.kits.find((k) => k.analyte =
 
 export const WIDE_COLUMNS: Col[] = [
   { h: 'sample_id', get: ({ s }) => s.id },
+  { h: 'sample_code', get: ({ s }) => s.sampleCode },
   { h: 'site_code', get: ({ site }) => site?.code },
   { h: 'site_name', get: ({ site }) => site?.name },
   { h: 'site_type', get: ({ site }) => site?.type },
@@ -78,6 +79,7 @@ export const WIDE_COLUMNS: Col[] = [
   { h: 'weather', get: ({ s }) => s.weather },
   { h: 'qc_type', get: ({ s }) => s.qc.type },
   { h: 'qc_parent_id', get: ({ s }) => s.qc.parentId },
+  { h: 'qc_parent_code', get: ({ s, parentCode }) => parentCode },
   // raw inputs, as entered
   { h: 'water_temp_degC', get: ({ s, d }) => reported(d, 'temperature', s.field.tempC?.values) },
   { h: 'water_temp_readings_n', get: ({ s }) => s.field.tempC?.values.length },
@@ -151,11 +153,19 @@ export interface ExportContext {
   sites: Site[];
   settings: Pick<Settings, 'activityModel' | 'conductanceFactor'>;
   profile?: MethodProfile;
+  /** the readable code of a sample outside `samples` (a QC parent from another day) */
+  codeOf?: (sampleId: string) => string | undefined;
 }
 
 function derivedRows(ctx: ExportContext) {
   const siteById = new Map(ctx.sites.map((s) => [s.id, s]));
-  return ctx.samples.map((s) => ({ s, site: siteById.get(s.siteId), d: derivedFor(s, ctx.settings, ctx.profile) }));
+  const codeById = new Map(ctx.samples.map((s) => [s.id, s.sampleCode]));
+  return ctx.samples.map((s) => ({
+    s,
+    site: siteById.get(s.siteId),
+    d: derivedFor(s, ctx.settings, ctx.profile),
+    parentCode: s.qc.parentId ? codeById.get(s.qc.parentId) ?? ctx.codeOf?.(s.qc.parentId) : undefined,
+  }));
 }
 
 /** One row per sample. */
@@ -170,7 +180,7 @@ export function longCsv(ctx: ExportContext, opts: { bom?: boolean } = {}): strin
   for (const { s, site, d } of derivedRows(ctx)) {
     const add = (parameter: string, value: number | undefined, ucum: string, origin: 'field' | 'lab' | 'computed', method: string, qualifier = '') => {
       if (value === undefined || !Number.isFinite(value)) return;
-      out.push([s.id, site?.code, s.time, parameter, value, ucum, origin, method, qualifier]);
+      out.push([s.id, s.sampleCode, site?.code, s.time, parameter, value, ucum, origin, method, qualifier]);
     };
     const q = s.qualifiers.join('; ');
     add('water_temperature', reported(d, 'temperature', s.field.tempC?.values), 'Cel', 'field', 'median of stable readings', q);
@@ -197,7 +207,7 @@ export function longCsv(ctx: ExportContext, opts: { bom?: boolean } = {}): strin
       add('charge_balance', a.chargeBalancePercent, '%', 'computed', 'Standard Methods 1030 E');
     }
   }
-  return toCsv(['sample_id', 'site_code', 'time_local', 'parameter', 'value', 'unit_ucum', 'origin', 'method', 'qualifier'], out, opts);
+  return toCsv(['sample_id', 'sample_code', 'site_code', 'time_local', 'parameter', 'value', 'unit_ucum', 'origin', 'method', 'qualifier'], out, opts);
 }
 
 export function calibrationsCsv(events: CalibrationEvent[], opts: { bom?: boolean } = {}): string {

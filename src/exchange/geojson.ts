@@ -35,6 +35,7 @@ export function samplesGeoJson(samples: Sample[], sites: Site[], settings: Pick<
         id: s.id,
         geometry: pointOf(byId.get(s.siteId)),
         properties: {
+          sample_code: s.sampleCode ?? null,
           site_code: byId.get(s.siteId)?.code ?? null,
           time_local: s.time,
           qc_type: s.qc.type,

@@ -133,6 +133,9 @@ export const Qualifier = z.enum(['estimated', 'unstable', 'outside-calibration',
 
 export const Sample = z.object({
   ...Meta,
+  /** the short ID written on the bottle and used as the WQX Activity ID (≤ 35 characters, unique on the device;
+   * given by the store at the first save, kept through edits; see records/sample-code.ts) */
+  sampleCode: z.string().min(1).max(35).regex(/^[A-Za-z0-9][A-Za-z0-9-]*$/, { error: 'A sample code holds letters, digits and hyphens only' }).optional(),
   siteId: Id,
   fieldDayId: Id.optional(),
   /** sampling time with its UTC offset */

@@ -15,13 +15,14 @@ import type {
   Site,
 } from '../records/schema';
 import type { MethodProfile } from '../chemistry';
+import { baseSampleCode, freeSampleCode } from '../records/sample-code';
 
 export const DB_NAME = 'bankside';
-export const DB_VERSION = 2;
+export const DB_VERSION = 3;
 
 export interface BanksideDB extends DBSchema {
   sites: { key: string; value: Site; indexes: { code: string } };
-  samples: { key: string; value: Sample; indexes: { localDate: string; siteId: string } };
+  samples: { key: string; value: Sample; indexes: { localDate: string; siteId: string; sampleCode: string } };
   drafts: { key: string; value: Draft };
   settings: { key: string; value: Settings };
   fieldDays: { key: string; value: FieldDay; indexes: { date: string } };
@@ -123,25 +124,62 @@ const v2: Migration = {
     const samples = tx.objectStore('samples');
     samples.createIndex('localDate', 'localDate');
     samples.createIndex('siteId', 'siteId');
-    // Rewrite each v1 sample with raw IDB cursor requests (no other awaits inside the upgrade).
+    // Rewrite each v1 sample with raw IDB requests (no other awaits inside the upgrade). All puts are
+    // placed in one callback, so a later step's requests run after every rewrite, never between them.
     const store = unwrap(samples) as unknown as IDBObjectStore;
-    const cursorReq = store.openCursor();
-    cursorReq.onsuccess = () => {
-      const cursor = cursorReq.result;
-      if (!cursor) return;
+    const all = store.getAll();
+    all.onsuccess = () => {
       try {
-        const old = cursor.value as SampleV1 & { localDate?: string };
-        if (old.localDate === undefined) cursor.update(sampleFromV1(old));
-        cursor.continue();
+        for (const old of all.result as Array<SampleV1 & { localDate?: string }>) {
+          if (old.localDate !== undefined) continue;
+          const put = store.put(sampleFromV1(old));
+          put.onerror = () => fail(put.error);
+        }
       } catch (e) {
         fail(e);
       }
     };
-    cursorReq.onerror = () => fail(cursorReq.error);
+    all.onerror = () => fail(all.error);
   },
 };
 
-export const MIGRATIONS: Migration[] = [v1, v2];
+/**
+ * Version 3: every sample gets its readable code (SITE-YYYYMMDD-HHMM, -R/-B for QC, -2… on a clash),
+ * in time order, and a unique index keeps codes unique on the device from then on.
+ */
+const v3: Migration = {
+  to: 3,
+  run(_db, tx, fail) {
+    const samples = tx.objectStore('samples');
+    samples.createIndex('sampleCode', 'sampleCode', { unique: true });
+    const siteStore = unwrap(tx.objectStore('sites')) as unknown as IDBObjectStore;
+    const sampleStore = unwrap(samples) as unknown as IDBObjectStore;
+    const sitesReq = siteStore.getAll();
+    sitesReq.onerror = () => fail(sitesReq.error);
+    sitesReq.onsuccess = () => {
+      const codeOf = new Map((sitesReq.result as Site[]).map((s) => [s.id, s.code]));
+      const all = sampleStore.getAll();
+      all.onerror = () => fail(all.error);
+      all.onsuccess = () => {
+        try {
+          const list = (all.result as Sample[]).sort((a, b) => Date.parse(a.time) - Date.parse(b.time));
+          const taken = new Set(list.map((s) => s.sampleCode).filter((c): c is string => !!c));
+          for (const s of list) {
+            if (s.sampleCode) continue;
+            const code = freeSampleCode(baseSampleCode(codeOf.get(s.siteId) ?? 'SITE', s.time, s.qc?.type ?? 'environmental'), taken);
+            taken.add(code);
+            const put = sampleStore.put({ ...s, sampleCode: code });
+            put.onerror = () => fail(put.error);
+          }
+        } catch (e) {
+          fail(e);
+        }
+      };
+    };
+  },
+};
+
+export const MIGRATIONS: Migration[] = [v1, v2, v3];
 
 export interface OpenOptions {
   name?: string;

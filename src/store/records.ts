@@ -21,6 +21,7 @@ export function loadSchemas(): Promise<typeof import('../records/schema')> {
 }
 import { diff } from '../records/diff';
 import { isoWithOffset, newId, nextSeq } from '../records/time';
+import { baseSampleCode, freeSampleCode } from '../records/sample-code';
 import { getDb, notifyChange } from './connection';
 import type { BanksideDB, Db } from './db';
 
@@ -109,6 +110,7 @@ async function putWithRevision<T extends WithMeta>(entity: Entity, input: unknow
   const SCHEMA_OF = { samples: S.Sample, sites: S.Site, calibrations: S.CalibrationEvent, instruments: S.Instrument, fieldDays: S.FieldDay } as const;
   try {
     const tx = db.transaction([storeName, 'revisions'], 'readwrite');
+    tx.done.catch(() => undefined); // a failed write aborts the transaction: the error that matters is thrown below
     const store = tx.objectStore(storeName);
     const before = (await store.get(raw.id as string)) as T | undefined;
     if (before) {
@@ -159,7 +161,40 @@ export type SampleInputRecord = Omit<z.input<typeof import('../records/schema').
 
 export async function saveSample(sample: SampleInputRecord, by: string): Promise<Sample> {
   const withDate = { ...sample, localDate: sample.localDate ?? (typeof sample.time === 'string' ? sample.time.slice(0, 10) : undefined) };
-  return putWithRevision<Sample>('sample', withDate, by);
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await putWithRevision<Sample>('sample', { ...withDate, sampleCode: await codeFor(withDate) }, by);
+    } catch (e) {
+      // another tab took the same code between our look-up and our write: look again, once
+      const constraint = e instanceof StoreError && (e.cause as { name?: string } | undefined)?.name === 'ConstraintError';
+      if (!constraint || attempt > 0 || sample.sampleCode) throw e;
+    }
+  }
+}
+
+/**
+ * The sample's readable code: the one given (an import or restore), else the one it already has
+ * (a code written on a bottle never changes through edits), else a new one free on this device.
+ */
+async function codeFor(sample: SampleInputRecord): Promise<string | undefined> {
+  if (sample.sampleCode) return sample.sampleCode;
+  const db = await getDb();
+  if (sample.id) {
+    const before = await db.get('samples', sample.id);
+    if (before?.sampleCode) return before.sampleCode;
+  }
+  if (typeof sample.time !== 'string' || !sample.siteId) return undefined;
+  const site = await db.get('sites', sample.siteId);
+  const base = baseSampleCode(site?.code ?? 'SITE', sample.time, sample.qc?.type ?? 'environmental');
+  // codes that start with the base (deleted samples keep theirs: a bottle may carry it)
+  const clashes = await db.getAllFromIndex('samples', 'sampleCode', IDBKeyRange.bound(base, `${base}\uffff`));
+  const taken = new Set(clashes.map((c) => c.sampleCode!));
+  return freeSampleCode(base, taken);
+}
+
+/** A sample by its readable code (as written on a bottle or scanned from a label). */
+export async function getSampleByCode(code: string): Promise<Sample | undefined> {
+  return (await getDb()).getFromIndex('samples', 'sampleCode', code);
 }
 
 export async function getSample(id: string): Promise<Sample | undefined> {

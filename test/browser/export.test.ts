@@ -25,14 +25,20 @@ describe('getting the day to the office, offline', () => {
     await context.setOffline(true);
     await page.getByRole('button', { name: 'Load demo creek' }).click();
     await page.waitForFunction(() => document.querySelectorAll('.sample-card').length === 3);
+    const codesOnList = await page.locator('.sample-card .sample-code').allTextContents();
+    expect(codesOnList).toHaveLength(3);
     await page.getByRole('link', { name: 'Send', exact: true }).click();
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Samples CSV (one row each)' }).click()]);
     expect(download.suggestedFilename()).toMatch(/^bankside_\d{4}-\d{2}-\d{2}_samples\.csv$/);
     const text = readFileSync((await download.path())!, 'utf8');
     expect(text.charCodeAt(0)).toBe(0xfeff);
     const { rows } = parseCsv(text);
+    expect(rows.map((r) => r.sample_code).sort()).toEqual([...codesOnList].sort());
     expect(rows.map((r) => r.site_code).sort()).toEqual(['WF-01', 'WF-02', 'WF-03']);
+    // each row carries the readable sample ID the day list shows (site code, local date, time)
     for (const r of rows) {
+      expect(r.sample_code).toMatch(new RegExp(`^${r.site_code}-\\d{8}-\\d{4}$`));
+      expect(r.sample_code!.length).toBeLessThanOrEqual(35);
       expect(r.engine_version).toBe('1.0.0');
       expect(Number.isFinite(Number(r.si_calcite))).toBe(true);
     }

@@ -96,7 +96,7 @@ describe('formula injection', () => {
 describe('long CSV, calibrations, titrations, GeoJSON', () => {
   it('long file: one row per value with UCUM units and origin', () => {
     const { header, rows } = parseCsv(longCsv(ctx));
-    expect(header).toEqual(['sample_id', 'site_code', 'time_local', 'parameter', 'value', 'unit_ucum', 'origin', 'method', 'qualifier']);
+    expect(header).toEqual(['sample_id', 'sample_code', 'site_code', 'time_local', 'parameter', 'value', 'unit_ucum', 'origin', 'method', 'qualifier']);
     const first = rows.filter((r) => r.sample_id === samples[0]!.id);
     expect(first.find((r) => r.parameter === 'water_temperature')).toMatchObject({ unit_ucum: 'Cel', origin: 'field' });
     expect(first.find((r) => r.parameter === 'pH')).toMatchObject({ unit_ucum: '[pH]', value: '7.06' }) // median of 7.12, 7.08, 7.06, 7.05, 7.05;

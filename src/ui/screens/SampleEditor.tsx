@@ -21,6 +21,7 @@ import { Choice, Section, SelectField, TextField } from '../components/Field';
 import { RepeatedReadings } from '../components/Readings';
 import { ResultsPanel } from '../components/Results';
 import { StateBadge } from '../components/State';
+import { SampleCode } from '../components/SampleCode';
 import { TitrationPlot } from '../components/TitrationPlot';
 import { useLive, useProfile, useSettings } from '../data';
 import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm } from '../forms/sample-form';
@@ -162,6 +163,7 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
           <span class="mini-si">SI {derived.analysis.saturationIndex.calcite.toFixed(2)} ± {derived.analysis.calciteSiUncertainty!.toFixed(2)}</span>
         )}
       </div>
+      {stored?.sampleCode && <p class="sample-code-line">Sample ID <SampleCode code={stored.sampleCode} /></p>}
       {restoredAt && (
         <p class="notice" role="status">
           Restored your unsaved entry from {new Date(restoredAt).toLocaleTimeString()}.{' '}

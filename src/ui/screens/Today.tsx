@@ -3,6 +3,7 @@ import { todayLocal } from '../../records/time';
 import { listCalibrations, listDay, listSites, restoreSample } from '../../store/records';
 import { loadDemo } from '../../demo/load';
 import { StateBadge } from '../components/State';
+import { SampleCode } from '../components/SampleCode';
 import { useLive, useProfile, useSettings } from '../data';
 import { uncoveredParameters } from '../coverage';
 import type { Route } from '../router';
@@ -74,6 +75,7 @@ export function TodayScreen({ route }: { route: Route }) {
                     {s.qc.type !== 'environmental' && <span class="tag">{s.qc.type}</span>}
                     {s.demo && <span class="tag">demo</span>}
                   </span>
+                  {s.sampleCode && <span class="card-code">Sample ID <SampleCode code={s.sampleCode} /></span>}
                   <StateBadge state={a?.calciteState ?? 'unknown'} />
                   <span class="keyvals">
                     {d.input.tempC !== undefined && Number.isFinite(d.input.tempC) && <span>{d.input.tempC.toFixed(1)} °C</span>}
