@@ -7,6 +7,7 @@ export default defineConfig({
     environment: 'node',
     include: ['test/browser/**/*.test.ts'],
     globalSetup: ['test/browser/global-setup.ts'],
+    setupFiles: ['test/browser/setup.ts'],
     testTimeout: 60_000,
     hookTimeout: 120_000,
     fileParallelism: false,

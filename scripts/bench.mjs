@@ -59,8 +59,8 @@ row('engine', 'analyzeSample (full major ions), median', quantile(ft, 0.5), 'ms'
   await build({ logLevel: 'silent' });
   const html = readFileSync('dist/index.html', 'utf8');
   const gz = (f) => gzipSync(readFileSync(join('dist', f))).length / 1024;
-  const initialJs = [...html.matchAll(/(?:src|href)="\/(assets\/[^"]+\.js)"/g)].map((m) => m[1]);
-  const initialCss = [...html.matchAll(/href="\/(assets\/[^"]+\.css)"/g)].map((m) => m[1]);
+  const initialJs = [...html.matchAll(/(?:src|href)="\.?\/(assets\/[^"]+\.js)"/g)].map((m) => m[1]);
+  const initialCss = [...html.matchAll(/href="\.?\/(assets\/[^"]+\.css)"/g)].map((m) => m[1]);
   const jsKb = initialJs.reduce((a, f) => a + gz(f), 0);
   const cssKb = initialCss.reduce((a, f) => a + gz(f), 0);
   const walk = (d) => readdirSync(d).flatMap((n) => (statSync(join(d, n)).isDirectory() ? walk(join(d, n)) : [join(d, n)]));

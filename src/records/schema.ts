@@ -3,6 +3,10 @@
 // titration point); computed indicators are derived from them by the engine and never stored as truth.
 import { z } from 'zod';
 
+// The app runs under a Content-Security-Policy without 'unsafe-eval': zod's fast path probes
+// `new Function`, which the browser reports as a policy violation. The plain path is used instead.
+z.config({ jitless: true });
+
 /** ISO 8601 date-time with an explicit UTC offset (or Z). */
 export const IsoDateTime = z
   .string()

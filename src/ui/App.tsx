@@ -4,6 +4,7 @@ import { Icon } from './components/Icon';
 import { StatusBar } from './components/StatusBar';
 import { startServiceWorker } from './sw-bridge';
 import { startOutboxTriggers } from './outbox-triggers';
+import { startLaunchQueue } from './launch';
 import { onConnectionEvent, type ConnectionEvent } from '../store/connection';
 import { TodayScreen } from './screens/Today';
 import { MoreScreen } from './screens/More';
@@ -16,6 +17,7 @@ const SiteDetail = lazyScreen(() => import('./screens/Sites').then((m) => m.Site
 const ChecksScreen = lazyScreen(() => import('./screens/Checks').then((m) => m.ChecksScreen));
 const SendScreen = lazyScreen(() => import('./screens/Send').then((m) => m.SendScreen));
 const SettingsScreen = lazyScreen(() => import('./screens/Settings').then((m) => m.SettingsScreen));
+const LabImport = lazyScreen(() => import('./screens/LabImport').then((m) => m.LabImport));
 const AboutScreen = lazyScreen(() => import('./screens/About').then((m) => m.AboutScreen));
 
 function titleOf(route: Route): string {
@@ -35,6 +37,7 @@ function Screen({ route }: { route: Route }) {
     case 'send': return <SendScreen />;
     case 'more': return <MoreScreen />;
     case 'settings': return <SettingsScreen />;
+    case 'lab': return <LabImport />;
     case 'cautions': return <CautionsScreen />;
     case 'about': return <AboutScreen />;
   }
@@ -51,6 +54,7 @@ export function App() {
   const [conn, setConn] = useState<ConnectionEvent | null>(null);
   useEffect(() => {
     startServiceWorker();
+    startLaunchQueue();
     const stopTriggers = startOutboxTriggers();
     const stopConn = onConnectionEvent(setConn);
     return () => {
@@ -67,7 +71,7 @@ export function App() {
     <div class="shell">
       <header class="topbar">
         <div class="brand">
-          <img src="/icons/icon-192.png" alt="" width="32" height="32" />
+          <img src={`${import.meta.env.BASE_URL}icons/icon-192.png`} alt="" width="32" height="32" />
           <span>Bankside</span>
         </div>
         <StatusBar />

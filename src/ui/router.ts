@@ -12,6 +12,7 @@ export const AREAS = [
 
 export const EXTRA_PAGES = [
   { id: 'settings', title: 'Settings' },
+  { id: 'lab', title: 'Lab results' },
   { id: 'cautions', title: 'Cautions' },
   { id: 'about', title: 'Methods and sources' },
 ] as const;

@@ -1,9 +1,10 @@
-import { useState } from 'preact/hooks';
+import { useEffect, useState } from 'preact/hooks';
 import { applyLabRows, checkLabRows, guessMapping, type LabMapping, type LabRowCheck } from '../../exchange/lab-import';
 import { parseCsv } from '../../exchange/csv';
 import { getDb } from '../../store/connection';
 import { SelectField } from '../components/Field';
 import { useSettings } from '../data';
+import { onLaunchedFile } from '../launch';
 
 const FIELDS: Array<{ key: keyof LabMapping; label: string; required: boolean }> = [
   { key: 'sampleId', label: 'Sample ID column', required: true },
@@ -32,19 +33,26 @@ export function LabImport() {
     setFileErrors(r.fileErrors);
   };
 
+  const [fileName, setFileName] = useState('');
+  const load = async (f: File) => {
+    const t = await f.text();
+    const h = parseCsv(t).header;
+    const m = guessMapping(h);
+    setText(t); setHeader(h); setMapping(m); setMsg(''); setFileName(f.name);
+    await preview(m, t);
+  };
+  // a CSV opened with the installed app (manifest file_handlers) lands here
+  useEffect(() => onLaunchedFile((f) => void load(f)), []);
+
   return (
     <div>
       <div class="field">
         <label for="labfile">Lab results file (CSV)</label>
         <input id="labfile" type="file" accept=".csv,text/csv" onChange={async (e) => {
           const f = (e.currentTarget as HTMLInputElement).files?.[0];
-          if (!f) return;
-          const t = await f.text();
-          const h = parseCsv(t).header;
-          const m = guessMapping(h);
-          setText(t); setHeader(h); setMapping(m); setMsg('');
-          await preview(m, t);
+          if (f) await load(f);
         }} />
+        {fileName && <p class="muted">File: {fileName}</p>}
       </div>
       {header.length > 0 && (
         <div class="row2">

@@ -10,7 +10,6 @@ import { createBackup } from '../../store/backup';
 import { listCalibrations, listSamplesBetween, listSamplesForSite, listSites } from '../../store/records';
 import { Choice, SelectField, TextField } from '../components/Field';
 import { useLive, useProfile, useSettings } from '../data';
-import { LabImport } from './LabImport';
 import { requestBackgroundSync } from '../outbox-triggers';
 
 type Scope = 'day' | 'range' | 'site';
@@ -133,7 +132,7 @@ export function SendScreen() {
       )}
 
       <h2>Lab results</h2>
-      <LabImport />
+      <p><a class="btn" href="#/lab">Import a lab results file</a></p>
 
       <h2>Backup</h2>
       <button type="button" class="btn btn-block" onClick={async () => shareOrDownload(`bankside-backup-${todayLocal()}.json`, JSON.stringify(await createBackup()), 'application/json')}>
