@@ -14,26 +14,26 @@ const browser = await chromium.launch({
   executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium',
   args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
 });
-try {
-  // narrow: a phone at 390×844 CSS px, 2× (780×1688 image)
-  const phone = await browser.newContext({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
-  const page = await phone.newPage();
+/** A fresh context with the demo creek loaded on today's screen. */
+async function demoPage(options) {
+  const page = await (await browser.newContext(options)).newPage();
   await page.goto(url);
   await page.getByRole('button', { name: 'Load demo creek' }).click();
   await page.waitForFunction(() => document.querySelectorAll('.sample-card').length >= 3, null, { timeout: 20_000 });
   await page.waitForTimeout(500);
+  return page;
+}
+
+try {
+  // narrow: a phone at 390×844 CSS px, 2× (780×1688 image)
+  const page = await demoPage({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2, isMobile: true, hasTouch: true });
   await page.screenshot({ path: `${out}/today-narrow.png` });
   await page.locator('.sample-card a, a.sample-card').first().click();
   await page.locator('h1', { hasText: 'Sample' }).waitFor();
   await page.waitForTimeout(800);
   await page.screenshot({ path: `${out}/sample-narrow.png` });
   // wide: the same day on an office screen, 1280×800 at 1×
-  const desk = await browser.newContext({ viewport: { width: 1280, height: 800 } });
-  const wide = await desk.newPage();
-  await wide.goto(url);
-  await wide.getByRole('button', { name: 'Load demo creek' }).click();
-  await wide.waitForFunction(() => document.querySelectorAll('.sample-card').length >= 3, null, { timeout: 20_000 });
-  await wide.waitForTimeout(500);
+  const wide = await demoPage({ viewport: { width: 1280, height: 800 } });
   await wide.screenshot({ path: `${out}/today-wide.png` });
   console.log(`written: ${out}/today-narrow.png, sample-narrow.png, today-wide.png`);
 } finally {
