@@ -20,15 +20,78 @@ export const MODEL_MAX_IONIC_STRENGTH: Record<ActivityModel, number> = {
 };
 
 /**
- * The model 'auto' uses at ionic strength I (mol/L): the limiting law below 0.001 (where it
- * agrees with the extended form to better than 0.01 in log γ for divalent ions), extended
- * Debye–Hückel to 0.1, Davies to 0.5, Truesdell–Jones above. Our choice, documented in DEVELOPERS.md.
+ * 'auto': the extended Debye–Hückel equation (Kielland sizes) up to I = 0.05 mol/L, the
+ * Truesdell–Jones equation from I = 0.1, and a linear blend of log γ in between
+ * ({@link AUTO_BLEND}), so that no index steps where the model changes.
+ * Why: against the mean-activity tables (Robinson & Stokes 1959, App. 8.10; from memory) both
+ * agree within 0.005 in γ± for NaCl at 0.01 m; above 0.1 m Truesdell–Jones is far closer than
+ * Davies (NaCl 0.5 m: table 0.681, TJ 0.675, Davies 0.733; KCl 0.5 m: table 0.649, TJ 0.643,
+ * Davies 0.733) and it holds to about 2 mol/kg for NaCl-type water (Truesdell & Jones 1974).
+ * The limiting law and Davies are therefore never chosen by 'auto' (both remain selectable).
  */
+export const AUTO_BLEND = { fromI: 0.05, toI: 0.1 } as const;
+
+/** Weight of Truesdell–Jones in 'auto' at ionic strength I (0 below 0.05 mol/L, 1 from 0.1). */
+export function autoTjWeight(ionicStrength: number): number {
+  const { fromI, toI } = AUTO_BLEND;
+  if (ionicStrength <= fromI) return 0;
+  if (ionicStrength >= toI) return 1;
+  return (ionicStrength - fromI) / (toI - fromI);
+}
+
+/** The model that carries most weight in 'auto' at I (what a result reports as its model). */
 export function chooseActivityModel(ionicStrength: number): ActivityModel {
-  if (ionicStrength < 0.001) return 'debye-huckel';
-  if (ionicStrength <= 0.1) return 'extended-debye-huckel';
-  if (ionicStrength <= 0.5) return 'davies';
-  return 'truesdell-jones';
+  return autoTjWeight(ionicStrength) >= 0.5 ? 'truesdell-jones' : 'extended-debye-huckel';
+}
+
+/** log10 γ of an ion under 'auto' (blend of extended Debye–Hückel and Truesdell–Jones, see {@link AUTO_BLEND}). */
+export function autoLogGamma(ion: Ion, I: number, terms: DebyeHuckelTerms): number {
+  const w = autoTjWeight(I);
+  if (w === 0) return logGammaFor(ion, I, terms, 'extended-debye-huckel');
+  if (w === 1) return logGammaFor(ion, I, terms, 'truesdell-jones');
+  return (1 - w) * logGammaFor(ion, I, terms, 'extended-debye-huckel') + w * logGammaFor(ion, I, terms, 'truesdell-jones');
+}
+
+/**
+ * How much a model still counts as valid at I: 1 up to its {@link MODEL_MAX_IONIC_STRENGTH},
+ * falling linearly to 0 at 1.5× that limit (so the spread of valid models has no step either).
+ */
+export function modelValidityWeight(model: ActivityModel, ionicStrength: number): number {
+  const max = MODEL_MAX_IONIC_STRENGTH[model];
+  if (ionicStrength <= max) return 1;
+  return Math.max(0, 1 - (ionicStrength - max) / (0.5 * max));
+}
+
+/**
+ * Doubt from the activity model about a sum of log γ (e.g. log γCa + log γCO3 for calcite):
+ * the largest difference between the model used and any model valid at I, each weighted by
+ * {@link modelValidityWeight} (the limiting law is their common low-I limit and is left out),
+ * and never less than a floor for the model used itself.
+ * Floor: Truesdell–Jones fits NaCl-type mean-activity tables within about 0.01 in log γ± to
+ * 2 mol/kg but not sulfate-rich water (Truesdell & Jones 1974; Na₂SO₄ and MgSO₄ γ± in Robinson
+ * & Stokes 1959, from memory): 0.01 per unit charge² per mol/L of I, our reading of those fits.
+ * Returned as a ± half-width (log units); the caller treats it as a standard uncertainty, so
+ * the 95 % band spans every valid model.
+ */
+export function activityModelDoubt(
+  ions: ReadonlyArray<readonly [Ion, number]>,
+  ionicStrength: number,
+  terms: DebyeHuckelTerms,
+  used: ActivityModel | 'auto',
+): number {
+  if (!(ionicStrength > 0)) return 0;
+  const sum = (m: ActivityModel | 'auto') =>
+    ions.reduce((s, [ion, nu]) => s + nu * (m === 'auto' ? autoLogGamma(ion, ionicStrength, terms) : logGammaFor(ion, ionicStrength, terms, m)), 0);
+  const base = sum(used);
+  let worst = 0;
+  // The limiting law is the common low-I limit of the others, not a competing model: left out.
+  for (const m of ACTIVITY_MODELS) {
+    if (m === 'debye-huckel') continue;
+    const w = modelValidityWeight(m, ionicStrength);
+    if (w > 0) worst = Math.max(worst, w * Math.abs(sum(m) - base));
+  }
+  const z2 = ions.reduce((s, [ion, nu]) => s + Math.abs(nu) * SPECIES[ion].charge * SPECIES[ion].charge, 0);
+  return Math.max(worst, 0.01 * z2 * ionicStrength);
 }
 
 /** Precomputed temperature terms, so a speciation loop does not redo them. */

@@ -118,8 +118,9 @@ export function dataChecks(
   range('range-ph', 'pH', input.pH ?? undefined, r.pH, 'Check against a buffer and re-measure.');
   const doMgL = extras.doMgL ?? undefined;
   range('range-do', 'Dissolved oxygen (mg/L)', doMgL, r.doMgL, 'Check the DO sensor calibration.');
-  let doPct: number | undefined;
-  if (present('doMgL', doMgL) && input.tempC >= 0 && input.tempC <= 40) {
+  // the engine's own saturation (salinity from SC, pressure) when it had the DO reading
+  let doPct: number | undefined = analysis.oxygen?.percentSaturation;
+  if (doPct === undefined && present('doMgL', doMgL) && input.tempC >= 0 && input.tempC <= 40) {
     doPct = oxygenPercentSaturation(doMgL, input.tempC, extras.pressureKPa ?? undefined, Math.min(input.salinity ?? 0, 40));
   }
   range('range-do-percent', 'DO saturation (%)', doPct, r.doPercent, 'Very high or low saturation: check calibration, bubbles or a fouled membrane.');

@@ -37,7 +37,23 @@ export type WarningCode =
   | 'calcite-needs-inputs'
   | 'constants-extrapolated'
   | 'concentration-high'
+  | 'unit-slip-calcium'
+  | 'unit-slip-alkalinity'
+  | 'alkalinity-inconsistent-with-ph'
+  | 'sc-beyond-salinity-scale'
+  | 'seawater-ions-implied'
+  | 'langelier-formula'
+  | 'langelier-needs-inputs'
+  | 'gypsum-without-ph'
+  | 'oxygen-out-of-range'
+  | 'oxygen-pressure-assumed'
   | (string & {});
+
+/**
+ * 'action': something to check or redo before leaving the site. 'notice': a standing fact about
+ * the result (an estimate used, a trend to expect) that needs no action. Absent means 'action'.
+ */
+export type WarningKind = 'action' | 'notice';
 
 export interface ChemWarning {
   code: WarningCode;
@@ -45,6 +61,13 @@ export interface ChemWarning {
   message: string;
   /** The input field concerned, where there is one. */
   field?: string;
+  /** whether it asks for an action or only informs; absent = 'action' */
+  kind?: WarningKind;
+}
+
+/** True for a standing notice (information only), false for a warning that needs an action. */
+export function isNotice(w: ChemWarning): boolean {
+  return w.kind === 'notice';
 }
 
 /** A number that is present: not undefined or null. NaN or ±Infinity is refused with InputError. */

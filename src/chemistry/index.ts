@@ -1,12 +1,17 @@
 // Public surface of the Bankside chemistry engine. Pure TypeScript: no DOM, storage or UI.
 // Other parts of the app import from here only.
-export { InputError, type ChemWarning, type WarningCode } from './errors';
+export { InputError, isNotice, type ChemWarning, type WarningCode, type WarningKind } from './errors';
 export { SPECIES, MOLAR_MASS, MG_CACO3_PER_MEQ, isIon, type Ion, type SpeciesInfo } from './species';
 export { dielectricConstant, waterDensity, debyeHuckelA, debyeHuckelB, kelvin } from './water';
 export {
   activityCoefficient,
   meanActivityCoefficient,
   chooseActivityModel,
+  autoTjWeight,
+  autoLogGamma,
+  activityModelDoubt,
+  modelValidityWeight,
+  AUTO_BLEND,
   ACTIVITY_MODELS,
   MODEL_MAX_IONIC_STRENGTH,
   type ActivityModel,
@@ -17,22 +22,48 @@ export {
   ionicStrengthFromTds,
   ionicStrengthFromSalinity,
   ionicStrengthFromIons,
+  ionicStrengthFromSpecificConductance,
+  seawaterWeight,
+  salinityFromScExtended,
   DEFAULT_CONDUCTANCE_FACTOR,
   CONDUCTANCE_ESTIMATE_REL_UNCERTAINTY,
+  SALINITY_ESTIMATE_REL_UNCERTAINTY,
+  BRACKISH_BLEND_US_PER_CM,
+  PSS78_MAX_SC_US_PER_CM,
+  type ScIonicStrength,
 } from './ionic-strength';
 export { speciate, type Speciation, type SpeciationInput } from './speciation';
-export { specificConductance, conductivityAtTemperature, calculatedConductance } from './conductance';
+export { specificConductance, conductivityAtTemperature, calculatedConductance, ONSAGER_25C } from './conductance';
 export { chargeBalance, SM1030E_LIMITS, type ChargeBalance, type BalanceLimits } from './balance';
 export {
   analyzeSample,
-  DEFAULT_UNCERTAINTIES,
+  langelierFormulaPhs,
+  SEAWATER_IONS_MOL_KG_S35,
+  ALKALINITY_ENDPOINT_PH,
+  SULFATE_RICH_MAX_IONIC_STRENGTH,
+  type SiteConductanceFactor,
+  type ConductanceFactorSource,
   type Analysis,
   type AnalyzeOptions,
   type SampleInput,
   type CalciteState,
   type IonicStrengthSource,
-  type Uncertainties,
 } from './analyze';
+export {
+  DEFAULT_UNCERTAINTIES,
+  SC_ABS_U_US_PER_CM,
+  LOG_K_UNCERTAINTY,
+  COVERAGE_FACTOR,
+  uncertaintiesFromEvidence,
+  makeBudget,
+  budgetLine,
+  type Uncertainties,
+  type SampleEvidence,
+  type BudgetEntry,
+  type UncertaintySource,
+  type UncertaintyBasis,
+  type EvidenceUncertainties,
+} from './uncertainty';
 export { ENGINE_VERSION, ATMOSPHERIC_LOG_PCO2 } from './version';
 export {
   oxygenSaturationMgL,

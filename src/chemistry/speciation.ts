@@ -1,4 +1,4 @@
-import { chooseActivityModel, debyeHuckelTerms, logGammaFor, type ActivityModel } from './activity';
+import { autoLogGamma, autoTjWeight, chooseActivityModel, debyeHuckelTerms, logGammaFor, type ActivityModel } from './activity';
 import { logKTable, type LogKTable } from './equilibrium';
 import { SPECIES, type Ion } from './species';
 
@@ -52,7 +52,10 @@ export type SpeciesKey = Ion | 'CaCO3aq' | 'MgCO3aq' | 'CaSO4aq' | 'MgSO4aq' | '
 
 export interface Speciation {
   ionicStrength: number;
+  /** the model applied (under 'auto', the one with most weight) */
   model: ActivityModel;
+  /** under 'auto', the weight of Truesdell–Jones in the blend (0–1); 0 or 1 for a chosen model */
+  tjWeight: number;
   iterations: number;
   converged: boolean;
   /** free concentrations, mol/L */
@@ -113,7 +116,7 @@ export function speciate(input: SpeciationInput): Speciation {
     st?.I ??
     0.5 * (4 * T.ca + 4 * T.mg + T.na + T.k + T.cl + 4 * T.so4 + T.no3 + T.f + (alk ?? 0) + aH);
   let lastI = Number.NaN;
-  let lastModel: ActivityModel | null = null;
+  let lastModel: ActivityModel | 'auto' | null = null;
 
   const lg = {} as Record<Ion, number>;
   const g = {} as Record<Ion, number>;
@@ -126,13 +129,14 @@ export function speciate(input: SpeciationInput): Speciation {
   for (iter = 1; iter <= MAX_ITER; iter++) {
     model = input.model === 'auto' ? chooseActivityModel(I) : input.model;
     // γ depends only on I and the model: with a fixed (estimated) I it is computed once.
-    if (I !== lastI || model !== lastModel) {
+    // 'auto' blends two models across AUTO_BLEND (activity.ts), so it is passed on as 'auto'.
+    if (I !== lastI || input.model !== lastModel) {
       for (const ion of CHARGED) {
-        lg[ion] = logGammaFor(ion, I, terms, model);
+        lg[ion] = input.model === 'auto' ? autoLogGamma(ion, I, terms) : logGammaFor(ion, I, terms, input.model);
         g[ion] = Math.pow(10, lg[ion]);
       }
       lastI = I;
-      lastModel = model;
+      lastModel = input.model;
     }
     const aCa = g.Ca * ca, aMg = g.Mg * mg, aNa = g.Na * na, aK = g.K * kk, aSO4 = g.SO4 * so4;
     const cH = aH / g.H;
@@ -217,6 +221,7 @@ export function speciate(input: SpeciationInput): Speciation {
   return {
     ionicStrength: I,
     model,
+    tjWeight: input.model === 'auto' ? autoTjWeight(I) : input.model === 'truesdell-jones' ? 1 : 0,
     iterations: iter,
     converged,
     conc: c,

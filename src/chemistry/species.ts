@@ -25,6 +25,8 @@ export interface SpeciesInfo {
   tj?: { a: number; b: number };
   /** Equivalent conductance at infinite dilution, 25 °C, S cm²/equiv */
   lambda0?: number;
+  /** for a charged ion pair: the free ion whose λ° it takes half of in calculated conductance (our assumption) */
+  pairOf?: string;
 }
 
 export const SPECIES = {
@@ -42,14 +44,14 @@ export const SPECIES = {
   NO3: { charge: -1, molarMass: 62.004, kiellandA: 3, lambda0: 71.4 },
   F: { charge: -1, molarMass: 18.998, kiellandA: 3.5, lambda0: 55.4 },
   HSO4: { charge: -1, molarMass: 97.07, kiellandA: 4, lambda0: 50 },
-  H3SiO4: { charge: -1, molarMass: 95.11, kiellandA: 4, sizeAssumed: true },
-  CaHCO3: { charge: 1, molarMass: 101.095, kiellandA: 4, sizeAssumed: true },
-  MgHCO3: { charge: 1, molarMass: 85.322, kiellandA: 4, sizeAssumed: true },
-  NaCO3: { charge: -1, molarMass: 82.999, kiellandA: 4, sizeAssumed: true },
-  NaSO4: { charge: -1, molarMass: 119.05, kiellandA: 4, sizeAssumed: true },
-  KSO4: { charge: -1, molarMass: 135.158, kiellandA: 4, sizeAssumed: true },
-  CaOH: { charge: 1, molarMass: 57.085, kiellandA: 4, sizeAssumed: true },
-  MgOH: { charge: 1, molarMass: 41.312, kiellandA: 4, sizeAssumed: true },
+  H3SiO4: { charge: -1, molarMass: 95.11, kiellandA: 4, sizeAssumed: true, pairOf: 'HCO3' },
+  CaHCO3: { charge: 1, molarMass: 101.095, kiellandA: 4, sizeAssumed: true, pairOf: 'Ca' },
+  MgHCO3: { charge: 1, molarMass: 85.322, kiellandA: 4, sizeAssumed: true, pairOf: 'Mg' },
+  NaCO3: { charge: -1, molarMass: 82.999, kiellandA: 4, sizeAssumed: true, pairOf: 'CO3' },
+  NaSO4: { charge: -1, molarMass: 119.05, kiellandA: 4, sizeAssumed: true, pairOf: 'SO4' },
+  KSO4: { charge: -1, molarMass: 135.158, kiellandA: 4, sizeAssumed: true, pairOf: 'SO4' },
+  CaOH: { charge: 1, molarMass: 57.085, kiellandA: 4, sizeAssumed: true, pairOf: 'Ca' },
+  MgOH: { charge: 1, molarMass: 41.312, kiellandA: 4, sizeAssumed: true, pairOf: 'Mg' },
 } as const satisfies Record<string, SpeciesInfo>;
 
 export type Ion = keyof typeof SPECIES;

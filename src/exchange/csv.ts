@@ -127,7 +127,7 @@ export const WIDE_COLUMNS: Col[] = [
   { h: 'ionic_strength_source', get: ({ d }) => d.analysis?.ionicStrength.source },
   { h: 'activity_model', get: ({ d }) => d.analysis?.activityModel },
   { h: 'si_calcite', get: ({ d }) => d.analysis?.saturationIndex.calcite },
-  { h: 'si_calcite_band', get: ({ d }) => d.analysis?.calciteSiUncertainty },
+  { h: 'si_calcite_band_95pct', get: ({ d }) => d.analysis?.calciteSiUncertainty },
   { h: 'calcite_state', get: ({ d }) => d.analysis?.calciteState },
   { h: 'si_aragonite', get: ({ d }) => d.analysis?.saturationIndex.aragonite },
   { h: 'si_dolomite', get: ({ d }) => d.analysis?.saturationIndex.dolomite },
@@ -196,7 +196,7 @@ export function longCsv(ctx: ExportContext, opts: { bom?: boolean } = {}): strin
     const a = d.analysis;
     if (a) {
       add('ionic_strength', a.ionicStrength.value, 'mol/L', 'computed', `from ${a.ionicStrength.source}; engine ${ENGINE_VERSION}`);
-      add('saturation_index_calcite', a.saturationIndex.calcite, '1', 'computed', `${a.activityModel}; band ±${a.calciteSiUncertainty?.toFixed(3) ?? ''}`);
+      add('saturation_index_calcite', a.saturationIndex.calcite, '1', 'computed', `${a.activityModel}; band ±${a.calciteSiUncertainty?.toFixed(3) ?? ''} (95 %, k = 2)`);
       add('saturation_index_aragonite', a.saturationIndex.aragonite, '1', 'computed', a.activityModel);
       add('saturation_index_dolomite', a.saturationIndex.dolomite, '1', 'computed', a.activityModel);
       add('saturation_index_gypsum', a.saturationIndex.gypsum, '1', 'computed', a.activityModel);

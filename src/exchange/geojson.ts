@@ -43,7 +43,7 @@ export function samplesGeoJson(samples: Sample[], sites: Site[], settings: Pick<
           ph: d.input.pH ?? null,
           sc_uS_cm_25C: d.input.scUsPerCm ?? null,
           si_calcite: a?.saturationIndex.calcite ?? null,
-          si_calcite_band: a?.calciteSiUncertainty ?? null,
+          si_calcite_band_95pct: a?.calciteSiUncertainty ?? null,
           calcite_state: a?.calciteState ?? 'unknown',
           log_pco2_atm: a?.logPco2 ?? null,
           engine_version: d.engineVersion,

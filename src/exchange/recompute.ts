@@ -19,7 +19,7 @@ const FIELD_COLUMNS: Array<[keyof SampleInput, string]> = [
 
 export const OFFICE_COLUMNS = [
   'office_engine_version', 'office_sc_uS_cm_25C', 'office_ionic_strength_mol_L', 'office_ionic_strength_source', 'office_activity_model',
-  'office_si_calcite', 'office_si_calcite_band', 'office_calcite_state', 'office_log_pco2_atm', 'office_langelier_index',
+  'office_si_calcite', 'office_si_calcite_band_95pct', 'office_calcite_state', 'office_log_pco2_atm', 'office_langelier_index',
   'office_charge_balance_pct', 'office_charge_balance_ok', 'office_sc_calculated_uS_cm', 'office_lab_values_used',
   'office_checks_failed', 'office_flags', 'office_differs_from_field', 'office_error',
 ];

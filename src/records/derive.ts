@@ -7,8 +7,6 @@ import {
   ENGINE_VERSION,
   InputError,
   MG_CACO3_PER_MEQ,
-  oxygenMgLFromPercent,
-  oxygenPercentSaturation,
   pressureToKPa,
   specificConductance,
   stabilization,
@@ -20,6 +18,7 @@ import {
   type ChemWarning,
   type DataCheck,
   type MethodProfile,
+  type SampleEvidence,
   type SampleInput,
   type StabilizationResult,
   type TitrationResult,
@@ -44,6 +43,14 @@ export function calciumMgLFromKits(kits: KitResult[]): number | undefined {
   if (k.unit === 'mmol/L') return k.value * SPECIES.Ca.molarMass;
   if (k.unit === 'meq/L') return (k.value * SPECIES.Ca.molarMass) / 2;
   return k.value;
+}
+
+/** The calcium kit's step converted to mg/L of Ca, like its value (for the uncertainty: step/√12). */
+export function calciumKitStepMgL(kits: KitResult[]): number | undefined {
+  const k = kits.find((x) => x.analyte === 'calcium' || x.analyte === 'calcium-hardness');
+  if (!k || k.step === undefined || !(k.value > 0)) return undefined;
+  const ca = calciumMgLFromKits([k]);
+  return ca === undefined ? undefined : (k.step * ca) / k.value;
 }
 
 /** Magnesium (mg/L) from total hardness minus calcium hardness, when both kits were run. */
@@ -71,6 +78,25 @@ export interface Derived {
   checks: DataCheck[];
   warnings: ChemWarning[];
   engineVersion: string;
+}
+
+/**
+ * What this sample's own entries say about its uncertainty: the readings of each stabilization
+ * window and the calcium kit's step (the engine turns them into standard uncertainties).
+ */
+export function sampleEvidence(f: Sample['field'], stability: Derived['stability'], input: SampleInput): SampleEvidence {
+  const ev: SampleEvidence = {};
+  if (stability.pH && stability.pH.window.length > 1) ev.pHReadings = stability.pH.window;
+  if (stability.temperature && stability.temperature.window.length > 1) ev.tempReadings = stability.temperature.window;
+  const scw = stability.sc?.window;
+  if (scw && scw.length > 1 && input.scUsPerCm && stability.sc!.median) {
+    // raw EC readings scaled to SC at 25 °C (the compensation is one factor for the window)
+    const k = input.scUsPerCm / stability.sc!.median;
+    ev.scReadings = scw.map((v) => v * k);
+  }
+  const step = calciumKitStepMgL(f.kits);
+  if (step !== undefined) ev.caKitStepMgL = step;
+  return ev;
 }
 
 export function analyzeOptions(settings: Pick<Settings, 'activityModel' | 'conductanceFactor'>): AnalyzeOptions {
@@ -145,24 +171,24 @@ export function deriveSample(sample: Pick<Sample, 'field' | 'pressure' | 'lab'>,
     }
 
     if (sample.pressure) out.pressureKPa = pressureToKPa(sample.pressure.value, sample.pressure.unit);
+    if (out.pressureKPa !== undefined) input.pressureKPa = out.pressureKPa;
     const dox = f.do ? reportedValue(f.do.values, 'do', profile) : {};
     if (dox.stability) stability.do = dox.stability;
-    if (dox.value !== undefined && input.tempC >= 0 && input.tempC <= 40) {
-      const salinity = Math.min(input.salinity ?? 0, 40);
-      if (f.do!.unit === 'mg/L') {
-        out.doMgL = dox.value;
-        out.doPercent = oxygenPercentSaturation(dox.value, input.tempC, out.pressureKPa, salinity);
-      } else {
-        out.doPercent = dox.value;
-        out.doMgL = oxygenMgLFromPercent(dox.value, input.tempC, out.pressureKPa, salinity);
-      }
+    if (dox.value !== undefined) {
+      // the engine corrects saturation for this sample's salinity (from SC) and pressure
+      if (f.do!.unit === 'mg/L') input.doMgL = dox.value;
+      else input.doPercent = dox.value;
     }
     if (ions.nh3nh4NMgL !== undefined && input.pH !== undefined && input.pH !== null) {
       const n = unionizedAmmonia(ions.nh3nh4NMgL, input.pH, input.tempC);
       out.nh3 = { fraction: n.fraction, nh3NMgL: n.nh3NMgL };
     }
 
-    out.analysis = analyzeSample(input, analyzeOptions(settings));
+    out.analysis = analyzeSample(input, { ...analyzeOptions(settings), evidence: sampleEvidence(f, stability, input) });
+    if (out.analysis.oxygen) {
+      out.doMgL = out.analysis.oxygen.doMgL;
+      out.doPercent = out.analysis.oxygen.percentSaturation;
+    }
     out.checks = dataChecks(input, out.analysis, profile, { doMgL: out.doMgL ?? null, pressureKPa: out.pressureKPa ?? null });
     warnings.push(...out.analysis.warnings);
     if (out.titration) warnings.push(...out.titration.warnings);

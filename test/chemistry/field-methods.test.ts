@@ -96,11 +96,13 @@ describe('practicalSalinity (PSS-78, UNESCO 1983 Tech. Pap. Mar. Sci. 44)', () =
   it('ionic strength of seawater S = 35 is 0.7227 mol/kg (DOE 1994 / Dickson et al. 2007; from memory)', () => {
     expect(Math.abs(ionicStrengthFromSalinity(35) - 0.7227)).toBeLessThan(1e-4);
   });
-  it('analyzeSample uses salinity from SC for brackish water without an analysis', () => {
+  it('analyzeSample leans on salinity from SC for brackish water without an analysis', () => {
     const a = analyzeSample({ tempC: 18, pH: 7.9, scUsPerCm: 25000, alkalinityMgLCaCO3: 110, caMgL: 200 });
-    expect(a.ionicStrength.source).toBe('salinity');
+    expect(a.ionicStrength.source).toBe('conductance');
+    expect(a.ionicStrength.seawaterWeight!).toBeGreaterThan(0.9);
     expect(a.ionicStrength.value!).toBeGreaterThan(0.25);
     expect(a.ionicStrength.value!).toBeLessThan(0.4);
-    expect(a.activityModel).toBe('davies');
+    expect(a.activityModel).toBe('truesdell-jones');
+    expect(a.warnings.map((w) => w.code)).toContain('seawater-ions-implied');
   });
 });

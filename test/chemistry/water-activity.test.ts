@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import {
   activityCoefficient,
   chooseActivityModel,
+  autoTjWeight,
+  autoLogGamma,
   debyeHuckelA,
   debyeHuckelB,
   dielectricConstant,
@@ -95,11 +97,32 @@ describe('activityCoefficient', () => {
 });
 
 describe('chooseActivityModel (auto)', () => {
-  it('picks by ionic strength within each model’s range (common practice)', () => {
-    expect(chooseActivityModel(0.0005)).toBe('debye-huckel');
+  it('extended Debye–Hückel to I = 0.05, Truesdell–Jones from 0.1, blended between (AUTO_BLEND)', () => {
+    expect(chooseActivityModel(0.0005)).toBe('extended-debye-huckel');
     expect(chooseActivityModel(0.01)).toBe('extended-debye-huckel');
-    expect(chooseActivityModel(0.1)).toBe('extended-debye-huckel');
-    expect(chooseActivityModel(0.3)).toBe('davies');
+    expect(chooseActivityModel(0.07)).toBe('extended-debye-huckel');
+    expect(chooseActivityModel(0.08)).toBe('truesdell-jones');
+    expect(chooseActivityModel(0.3)).toBe('truesdell-jones');
     expect(chooseActivityModel(0.72)).toBe('truesdell-jones');
+    expect(autoTjWeight(0.05)).toBe(0);
+    expect(autoTjWeight(0.075)).toBeCloseTo(0.5, 12);
+    expect(autoTjWeight(0.1)).toBe(1);
+  });
+  it('auto picks Truesdell–Jones where it fits the mean-activity tables better than Davies (Robinson & Stokes 1959 App. 8.10; from memory)', () => {
+    // NaCl 0.5 m: γ± 0.681; KCl 0.5 m: 0.649; NaCl 1 m: 0.657; KCl 1 m: 0.604.
+    for (const [c, an, m, table] of [['Na', 'Cl', 0.5, 0.681], ['K', 'Cl', 0.5, 0.649], ['Na', 'Cl', 1, 0.657], ['K', 'Cl', 1, 0.604]] as const) {
+      const tj = Math.abs(meanActivityCoefficient(c, an, m, 25, 'truesdell-jones') / table - 1);
+      const dav = Math.abs(meanActivityCoefficient(c, an, m, 25, 'davies') / table - 1);
+      expect(tj).toBeLessThan(0.03);
+      expect(tj).toBeLessThan(dav);
+    }
+    // KCl at 0.5: Davies about +13 %, Truesdell–Jones about −1 % (the figures in issue 12)
+    expect(meanActivityCoefficient('K', 'Cl', 0.5, 25, 'davies') / 0.649 - 1).toBeGreaterThan(0.1);
+  });
+  it('the blended log γ is continuous across the transition', () => {
+    const t = { A: debyeHuckelA(25), B: debyeHuckelB(25) };
+    for (const I of [0.05, 0.1]) {
+      expect(Math.abs(autoLogGamma('Ca', I * 1.0001, t) - autoLogGamma('Ca', I * 0.9999, t))).toBeLessThan(1e-4);
+    }
   });
 });

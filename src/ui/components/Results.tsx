@@ -1,7 +1,8 @@
 import type { ComponentChildren } from 'preact';
-import { ATMOSPHERIC_LOG_PCO2 } from '../../chemistry';
+import { ATMOSPHERIC_LOG_PCO2, isNotice } from '../../chemistry';
 import type { Derived } from '../../records/derive';
 import { noteFor } from '../methods';
+import { BandBudget } from './BandBudget';
 import { SiGauge, StateBadge } from './State';
 
 const f = (v: number | undefined, d = 2) => (v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d));
@@ -62,6 +63,8 @@ export function ResultsPanel({ d }: { d: Derived }) {
     );
   }
   const si = a.saturationIndex;
+  const actions = d.warnings.filter((w) => !isNotice(w));
+  const notices = d.warnings.filter(isNotice);
   const times = a.logPco2 !== undefined ? Math.pow(10, a.logPco2 - ATMOSPHERIC_LOG_PCO2) : undefined;
   return (
     <section class="results" aria-label="Results" aria-live="polite">
@@ -69,20 +72,22 @@ export function ResultsPanel({ d }: { d: Derived }) {
         <StateBadge state={a.calciteState} large />
         {si.calcite !== undefined && (
           <p class="big-number" data-testid="calcite-si">
-            SI calcite {sign(si.calcite)} <span class="pm">± {f(a.calciteSiUncertainty)}</span>
+            SI calcite {sign(si.calcite)} <span class="pm">± {f(a.calciteSiUncertainty)} (95 %)</span>
           </p>
         )}
         {si.calcite !== undefined && a.calciteSiUncertainty !== undefined && <SiGauge si={si.calcite} band={a.calciteSiUncertainty} />}
       </div>
       <div class="result-list">
-        <Row label="Calcite SI" value={si.calcite === undefined ? 'needs pH, alkalinity, Ca' : `${sign(si.calcite)} ± ${f(a.calciteSiUncertainty)}`} note="calcite" />
+        <Row label="Calcite SI" value={si.calcite === undefined ? 'needs pH, alkalinity, Ca' : `${sign(si.calcite)} ± ${f(a.calciteSiUncertainty)} (95 %)`} note="calcite" testId="calcite-si-row">
+          {a.calciteSiBudget && a.calciteSiUncertainty !== undefined && <BandBudget band={a.calciteSiUncertainty} budget={a.calciteSiBudget} />}
+        </Row>
         <Row
           label="Ionic strength"
           value={a.ionicStrength.value === undefined ? '—' : `${a.ionicStrength.value.toPrecision(3)} mol/L`}
           note="ionic-strength"
           testId="ionic-strength"
         >
-          <p>{SOURCE_WORDS[a.ionicStrength.source]}{a.ionicStrength.relUncertainty > 0 ? ` (±${Math.round(a.ionicStrength.relUncertainty * 100)} %)` : ''}.</p>
+          <p>{SOURCE_WORDS[a.ionicStrength.source]}{a.ionicStrength.conductanceFactor?.source === 'site' ? ` with this site's own factor (${a.ionicStrength.conductanceFactor.n} full analyses)` : ''}{a.ionicStrength.relUncertainty > 0 ? ` (±${Math.round(2 * a.ionicStrength.relUncertainty * 100)} %, 95 %)` : ''}.</p>
         </Row>
         <Row label="Activity model" value={MODEL_WORDS[a.activityModel] ?? a.activityModel} note="activity" />
         {si.aragonite !== undefined && <Row label="Aragonite SI" value={sign(si.aragonite)} note="minerals" />}
@@ -91,9 +96,13 @@ export function ResultsPanel({ d }: { d: Derived }) {
         {a.logPco2 !== undefined && (
           <Row label="log pCO₂" value={`${f(a.logPco2)} (${times! >= 1 ? `${times!.toFixed(times! < 10 ? 1 : 0)}× air` : `${(times! * 100).toFixed(0)} % of air`})`} note="pco2" testId="logpco2" />
         )}
-        {a.langelier && <Row label="Langelier index (LSI)" value={sign(a.langelier.lsi)} note="langelier"><p>pHs = {f(a.langelier.pHs)}</p></Row>}
+        {a.langelier && <Row label="Langelier index (LSI)" value={sign(a.langelier.lsi)} note="langelier"><p>pHs = {f(a.langelier.pHs)}{a.langelier.method === 'sm-2330-formula' ? ' (Standard Methods 2330 formula: no pH below 14 saturates this water)' : ''}</p></Row>}
         {a.langelier && <Row label="Ryznar index (RSI)" value={f(a.langelier.rsi)} note="langelier" />}
-        {d.doPercent !== undefined && <Row label="Oxygen saturation" value={`${f(d.doPercent, 0)} %  (${f(d.doMgL, 1)} mg/L)`} note="do" />}
+        {d.doPercent !== undefined && (
+          <Row label="Oxygen saturation" value={`${f(d.doPercent, 0)} %  (${f(d.doMgL, 1)} mg/L)`} note="do">
+            {a.oxygen && <p>Saturation {f(a.oxygen.saturationMgL, 2)} mg/L at salinity {f(a.oxygen.salinity, 1)} and {f(a.oxygen.pressureKPa, 1)} kPa.</p>}
+          </Row>
+        )}
         {d.nh3 && <Row label="Un-ionized ammonia" value={`${f(d.nh3.nh3NMgL, 4)} mg/L as N (${f(d.nh3.fraction * 100, 1)} %)`} note="ammonia" />}
         {a.hardnessMgLCaCO3 !== undefined ? (
           <Row label="Hardness" value={`${f(a.hardnessMgLCaCO3, 0)} mg/L as CaCO₃`} note="hardness" />
@@ -114,11 +123,11 @@ export function ResultsPanel({ d }: { d: Derived }) {
           <Row label="Alkalinity (titration)" value={`${f(d.titration.alkalinityMgLCaCO3, 1)} mg/L as CaCO₃, ${d.titration.method}`} note="titration" />
         )}
       </div>
-      {d.warnings.length > 0 && (
+      {actions.length > 0 && (
         <div class="warnings">
           <h3>Check before you leave the site</h3>
           <ul>
-            {d.warnings.map((w, i) => (
+            {actions.map((w, i) => (
               <li key={`${w.code}-${i}`} data-code={w.code}>
                 <span aria-hidden="true">⚠ </span>
                 {w.message}
@@ -126,6 +135,16 @@ export function ResultsPanel({ d }: { d: Derived }) {
             ))}
           </ul>
         </div>
+      )}
+      {notices.length > 0 && (
+        <details class="notices">
+          <summary>Notes on this result ({notices.length})</summary>
+          <ul>
+            {notices.map((w, i) => (
+              <li key={`${w.code}-${i}`} data-code={w.code}>{w.message}</li>
+            ))}
+          </ul>
+        </details>
       )}
     </section>
   );
