@@ -5,6 +5,7 @@ import type { Browser } from 'playwright-core';
 import { readFileSync } from 'node:fs';
 import { parseCsv } from '../../src/exchange/csv';
 import { launch, openControlled, phoneContext, serveDist, shot, type Served } from './helpers';
+import { ENGINE_VERSION } from '../../src/chemistry';
 
 let browser: Browser;
 let served: Served;
@@ -39,7 +40,7 @@ describe('getting the day to the office, offline', () => {
     for (const r of rows) {
       expect(r.sample_code).toMatch(new RegExp(`^${r.site_code}-\\d{8}-\\d{4}$`));
       expect(r.sample_code!.length).toBeLessThanOrEqual(35);
-      expect(r.engine_version).toBe('1.0.0');
+      expect(r.engine_version).toBe(ENGINE_VERSION);
       expect(Number.isFinite(Number(r.si_calcite))).toBe(true);
     }
     await page.getByText(/Saved bankside_.*_samples\.csv to downloads/).waitFor();

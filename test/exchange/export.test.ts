@@ -5,6 +5,7 @@ import { Sample, Site, CalibrationEvent, DEFAULT_SETTINGS } from '../../src/reco
 import { calibrationsCsv, longCsv, parseCsv, safeCell, titrationsCsv, toCsv, unsafeCell, WIDE_COLUMNS, wideCsv } from '../../src/exchange/csv';
 import { samplesGeoJson, sitesGeoJson } from '../../src/exchange/geojson';
 import { deriveSample } from '../../src/records/derive';
+import { ENGINE_VERSION } from '../../src/chemistry';
 
 const T = '2026-06-14T12:00:00-06:00';
 const meta = { createdAt: T, updatedAt: T };
@@ -37,7 +38,7 @@ describe('wide CSV (one row per sample)', () => {
     const { rows } = parseCsv(wideCsv(ctx));
     const r = rows[0]!;
     expect(r.time_local).toMatch(/^2026-06-1\dT\d\d:\d\d:\d\d[+-]\d\d:\d\d$/);
-    expect(r.engine_version).toBe('1.0.0');
+    expect(r.engine_version).toBe(ENGINE_VERSION);
     expect(['conductance', 'composition']).toContain(r.ionic_strength_source);
     expect(r.datum).toBe('WGS84');
     const rep = rows.find((x) => x.qc_type === 'replicate')!;
