@@ -15,7 +15,8 @@ export interface CurveSpec {
   seed?: number;
 }
 
-function mulberry32(seed: number): () => number {
+/** mulberry32: a small seeded generator, so synthetic data and Monte Carlo tests are repeatable. */
+export function mulberry32(seed: number): () => number {
   let a = seed >>> 0;
   return () => {
     a = (a + 0x6d2b79f5) >>> 0;
