@@ -18,7 +18,7 @@ export function sitesGeoJson(sites: Site[]): string {
       type: 'Feature',
       id: s.id,
       geometry: pointOf(s),
-      properties: { code: s.code, name: s.name, site_type: s.type, datum: s.datum, accuracy_m: s.accuracyM ?? null, elevation_m: s.elevationM ?? null, demo: s.demo ?? false },
+      properties: { code: s.code, name: s.name, site_type: s.type, datum: s.datum, accuracy_m: s.accuracyM ?? null, elevation_m: s.elevationM ?? null, run_order: s.runOrder ?? null, demo: s.demo ?? false },
     })),
   });
 }

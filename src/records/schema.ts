@@ -49,6 +49,8 @@ export const Site = z.object({
   accuracyM: Finite.min(0).optional(),
   elevationM: Finite.optional(),
   notes: z.string().max(4000).default(''),
+  /** the office's visiting order for a sampling run (1 = first); the day view offers the next unvisited */
+  runOrder: z.number().int().min(0).max(100000).optional(),
 });
 
 export const Instrument = z.object({

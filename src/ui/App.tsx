@@ -29,7 +29,7 @@ function titleOf(route: Route): string {
 function Screen({ route }: { route: Route }) {
   switch (route.area) {
     case 'today': return <TodayScreen route={route} />;
-    case 'new': return <SampleEditor key="new" />;
+    case 'new': return <SampleEditor key={`new:${route.query.get('site') ?? ''}`} siteId={route.query.get('site') ?? undefined} />;
     case 'sample': return <SampleEditor key={route.param} sampleId={route.param} />;
     case 'sites': return <SitesScreen />;
     case 'site': return <SiteDetail siteId={route.param} />;

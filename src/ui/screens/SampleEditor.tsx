@@ -37,12 +37,12 @@ function draftIdFor(sampleId: string | undefined): string {
 }
 
 /** New sample (#/new) or an existing one (#/sample/<id>). Every keystroke is saved as a draft. */
-export function SampleEditor({ sampleId }: { sampleId?: string }) {
+export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a new sample's site, when the day view offered it */ siteId?: string | undefined }) {
   const settings = useSettings();
   const profile = useProfile();
   const sites = useLive(listSites, [], ['sites']);
   // A new sample's form is usable at once (no wait for storage); an existing one waits for its record.
-  const [form, setForm] = useState<SampleForm | null>(() => (sampleId ? null : emptyForm()));
+  const [form, setForm] = useState<SampleForm | null>(() => (sampleId ? null : { ...emptyForm(), siteId: siteId ?? '' }));
   const [olderDraft, setOlderDraft] = useState<{ form: SampleForm; at: string } | null>(null);
   const [restoredAt, setRestoredAt] = useState('');
   const [saveError, setSaveError] = useState<StoreError | null>(null);
@@ -184,7 +184,7 @@ export function SampleEditor({ sampleId }: { sampleId?: string }) {
       <div class="editor-grid">
         <form class="editor-form" onSubmit={(ev) => { ev.preventDefault(); void save(); }} noValidate>
           <Section title="Where and when">
-            <SelectField id="site" label="Site" value={form.siteId} onChange={(v) => update({ siteId: v })} error={missing.includes('site') ? 'Pick a site or add one here.' : undefined}>
+            <SelectField key={`site-${siteList.length}`} id="site" label="Site" value={form.siteId} onChange={(v) => update({ siteId: v })} error={missing.includes('site') ? 'Pick a site or add one here.' : undefined}>
               <option value="">Choose a site…</option>
               {siteList.map((s) => (
                 <option key={s.id} value={s.id}>{s.code} · {s.name}</option>

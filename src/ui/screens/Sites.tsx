@@ -6,6 +6,7 @@ import { Choice, TextField } from '../components/Field';
 import { StateBadge } from '../components/State';
 import { useLive, useProfile, useSettings } from '../data';
 import { parseDecimal } from '../forms/parse';
+import { SiteImport } from '../day/SiteImport';
 
 interface Position {
   latitude: number;
@@ -101,6 +102,10 @@ export function SitesScreen() {
   return (
     <section>
       <p class="lead">Streams, springs and wells you sample. Open one for its history chart.</p>
+      <details class="section" id="site-import">
+        <summary>Import a site list</summary>
+        <div class="section-body"><SiteImport /></div>
+      </details>
       {list.length === 0 ? <div class="empty"><p>No sites yet.</p></div> : (
         <ul class="cards">
           {list.map((s) => (

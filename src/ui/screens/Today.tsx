@@ -4,6 +4,7 @@ import { listCalibrations, listDay, listSites, restoreSample } from '../../store
 import { loadDemo } from '../../demo/load';
 import { StateBadge } from '../components/State';
 import { SampleCode } from '../components/SampleCode';
+import { DayGuide } from '../day/DayGuide';
 import { useLive, useProfile, useSettings } from '../data';
 import { uncoveredParameters } from '../coverage';
 import type { Route } from '../router';
@@ -49,6 +50,7 @@ export function TodayScreen({ route }: { route: Route }) {
         </p>
       )}
       <a class="btn btn-primary btn-block" href="#/new">+ New sample</a>
+      <DayGuide sites={sites.data ?? []} daySamples={list} isToday={isToday} />
       {list.length === 0 ? (
         <div class="empty">
           <p>No samples recorded {isToday ? 'today' : 'on this day'}.</p>

