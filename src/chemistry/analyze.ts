@@ -824,11 +824,13 @@ function scCrossCheck(input: SampleInput, t: Totals, result: Analysis, warnings:
  * The two commonest unit slips at the bank, caught against SC (≈ SC/100 meq/L of cations and of
  * anions; Standard Methods 1030 E, common practice):
  * - calcium typed in mmol/L (or meq/L) into a mg/L field: calcium carries under 5 % of the
- *   cations SC allows while the same number read as mmol/L would carry 15–110 % of them, and
- *   neither sodium nor magnesium was entered to carry the rest;
+ *   cations SC allows while the same number read as mmol/L would carry 15–110 % of them and
+ *   0.3–2× the alkalinity's equivalents (calcium–bicarbonate water, where the slip matters),
+ *   and neither sodium nor magnesium was entered to carry the rest (sodium waters stay quiet);
  * - alkalinity typed in meq/L into a mg/L-as-CaCO₃ field: at pH ≥ 7 (where bicarbonate is the
  *   main anion) it carries under 5 % of the anions SC allows, while read as meq/L it would carry
- *   15–110 %, and neither chloride nor sulfate was entered to carry the rest.
+ *   15–110 % (and 0.3–3× the calcium's equivalents when calcium is entered), and neither chloride
+ *   nor sulfate was entered to carry the rest.
  * Waters with SC below 30 µS/cm are left alone (blanks, snowmelt: too little to judge).
  */
 function unitSlipWarnings(input: SampleInput, t: Totals, warnings: ChemWarning[]): void {
@@ -839,7 +841,10 @@ function unitSlipWarnings(input: SampleInput, t: Totals, warnings: ChemWarning[]
   if (ca !== undefined && ca !== null && ca > 0 && t.na === undefined && t.mg === undefined) {
     const asMg = (2 * ca) / SPECIES.Ca.molarMass; // meq/L if mg/L
     const asMmol = 2 * ca; // meq/L if mmol/L
-    if (asMg < 0.05 * meq && asMmol >= 0.15 * meq && asMmol <= 1.1 * meq) {
+    // and read as mmol/L it pairs with the alkalinity as in calcium–bicarbonate water (0.3–2×)
+    const alkMeq = t.alkEqL !== undefined ? t.alkEqL * 1000 : undefined;
+    const pairs = alkMeq !== undefined && asMmol >= 0.3 * alkMeq && asMmol <= 2 * alkMeq;
+    if (pairs && asMg < 0.05 * meq && asMmol >= 0.15 * meq && asMmol <= 1.1 * meq) {
       warnings.push({
         code: 'unit-slip-calcium',
         message: `Calcium ${ca} mg/L is far too little for SC ${sc} µS/cm, but ${ca} mmol/L (${Math.round(ca * SPECIES.Ca.molarMass)} mg/L) or ${ca} meq/L (${Math.round((ca * SPECIES.Ca.molarMass) / 2)} mg/L) would fit: was it entered in mmol/L or meq/L? Enter calcium in mg/L.`,
@@ -851,7 +856,10 @@ function unitSlipWarnings(input: SampleInput, t: Totals, warnings: ChemWarning[]
   const pH = input.pH;
   if (alk !== undefined && alk !== null && alk > 0 && pH !== undefined && pH !== null && pH >= 7 && t.cl === undefined && t.so4 === undefined) {
     const asMg = alk / MG_CACO3_PER_MEQ; // meq/L if mg/L as CaCO3
-    if (asMg < 0.05 * meq && alk >= 0.15 * meq && alk <= 1.1 * meq) {
+    // with calcium entered, read as meq/L it must pair with it as in calcium–bicarbonate water (0.3–3×)
+    const caMeq = t.ca !== undefined ? 2000 * t.ca : undefined;
+    const pairs = caMeq === undefined || (alk >= 0.3 * caMeq && alk <= 3 * caMeq);
+    if (pairs && asMg < 0.05 * meq && alk >= 0.15 * meq && alk <= 1.1 * meq) {
       warnings.push({
         code: 'unit-slip-alkalinity',
         message: `Alkalinity ${alk} mg/L as CaCO₃ is far too little for SC ${sc} µS/cm at pH ${pH}, but ${alk} meq/L (${Math.round(alk * MG_CACO3_PER_MEQ)} mg/L as CaCO₃) would fit: was it entered in meq/L? Enter alkalinity in mg/L as CaCO₃.`,

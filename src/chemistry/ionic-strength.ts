@@ -126,7 +126,7 @@ export interface ScIonicStrength {
  * estimates' own, plus the half-difference of the two estimates weighted by 2w(1 − w) (the
  * doubt about which relation the water follows). With `siteFactor` the site's own factor is
  * used at every SC (its analyses are the best evidence for that water). Beyond S = 42 the
- * seawater relation is extended in proportion to SC (flagged `beyondPss78`).
+ * seawater relation is extended in proportion to SC (flagged `beyondPss78`, uncertainty ≥ 20 %).
  */
 export function ionicStrengthFromSpecificConductance(
   scUsPerCm: number,
@@ -145,6 +145,8 @@ export function ionicStrengthFromSpecificConductance(
   if (beyondPss78) sw *= scUsPerCm / PSS78_MAX_SC_US_PER_CM;
   const value = (1 - w) * fresh + w * sw;
   const between = fresh > 0 && sw > 0 ? Math.abs(Math.log(fresh / sw)) / 2 : 0;
-  const rel = (1 - w) * factorRel + w * SALINITY_ESTIMATE_REL_UNCERTAINTY + 2 * w * (1 - w) * between;
+  let rel = (1 - w) * factorRel + w * SALINITY_ESTIMATE_REL_UNCERTAINTY + 2 * w * (1 - w) * between;
+  // beyond S = 42 the brine's proportions are unknown: at least 20 % (our choice)
+  if (beyondPss78) rel = Math.max(rel, 0.2);
   return { value, relUncertainty: rel, seawaterWeight: w, salinity, beyondPss78 };
 }

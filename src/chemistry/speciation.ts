@@ -204,6 +204,10 @@ export function speciate(input: SpeciationInput): Speciation {
         (c.H + c.OH + c.Na + c.K + c.Cl + c.HCO3 + c.NO3 + c.F + c.HSO4 + c.H3SiO4 + c.CaHCO3 + c.MgHCO3 +
           c.NaCO3 + c.NaSO4 + c.KSO4 + c.CaOH + c.MgOH + 4 * (c.Ca + c.Mg + c.SO4 + c.CO3));
     }
+    // Beyond any natural water (pH 14 with no buffer: I ≈ 1 from OH⁻ alone) the activity models
+    // can run away: I is held within 0–10 mol/L and a non-finite pass keeps the last I (unconverged).
+    if (!Number.isFinite(nI)) nI = I;
+    nI = Math.min(10, Math.max(0, nI));
     const change = Math.max(
       rel(ca, nCa), rel(mg, nMg), rel(na, nNa), rel(kk, nK), rel(so4, nSO4), rel(hco3, x), rel(I, nI),
     );

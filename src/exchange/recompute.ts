@@ -1,6 +1,6 @@
 // The office side: re-run every indicator and data check on an exported samples CSV (optionally
 // joined with a lab-results CSV), with the same engine the phones use. Runs in Node.
-import { analyzeSample, dataChecks, DEFAULT_PROFILE, ENGINE_VERSION, InputError, specificConductance, type AnalyzeOptions, type SampleInput } from '../chemistry';
+import { analyzeSample, dataChecks, DEFAULT_PROFILE, ENGINE_VERSION, InputError, PRESSURE_TO_KPA, specificConductance, type AnalyzeOptions, type SampleInput } from '../chemistry';
 import { parseCsv, toCsv, unsafeCell, type Cell } from './csv';
 import { parseDecimalLoose } from '../records/numbers';
 
@@ -20,7 +20,7 @@ const FIELD_COLUMNS: Array<[keyof SampleInput, string]> = [
 export const OFFICE_COLUMNS = [
   'office_engine_version', 'office_sc_uS_cm_25C', 'office_ionic_strength_mol_L', 'office_ionic_strength_source', 'office_activity_model',
   'office_si_calcite', 'office_si_calcite_band_95pct', 'office_calcite_state', 'office_log_pco2_atm', 'office_langelier_index',
-  'office_charge_balance_pct', 'office_charge_balance_ok', 'office_sc_calculated_uS_cm', 'office_lab_values_used',
+  'office_charge_balance_pct', 'office_charge_balance_ok', 'office_sc_calculated_uS_cm', 'office_do_saturation_pct', 'office_lab_values_used',
   'office_checks_failed', 'office_flags', 'office_differs_from_field', 'office_error',
 ];
 
@@ -61,6 +61,11 @@ export function recomputeCsv(samplesCsv: string, labCsv?: string, options: Analy
           used.push(k);
         }
       }
+      // DO and pressure go to the engine, which corrects saturation for salinity (from SC) and pressure
+      const dox = parseDecimalLoose(r.do_field ?? '');
+      if (dox !== undefined) input[(r.do_field_unit ?? '').trim() === '%' ? 'doPercent' : 'doMgL'] = dox;
+      const p = parseDecimalLoose(r.pressure ?? ''), pUnit = (r.pressure_unit ?? '').trim() as keyof typeof PRESSURE_TO_KPA;
+      if (p !== undefined && pUnit in PRESSURE_TO_KPA) input.pressureKPa = p * PRESSURE_TO_KPA[pUnit];
       if (input.tempC === undefined) throw new InputError('tempC', 'no water temperature in the row');
       const a = analyzeSample(input as unknown as SampleInput, options);
       const checks = dataChecks(input as unknown as SampleInput, a, DEFAULT_PROFILE);
@@ -70,7 +75,7 @@ export function recomputeCsv(samplesCsv: string, labCsv?: string, options: Analy
         ...header.map((h) => r[h]),
         ENGINE_VERSION, input.scUsPerCm, a.ionicStrength.value, a.ionicStrength.source, a.activityModel,
         a.saturationIndex.calcite, a.calciteSiUncertainty, a.calciteState, a.logPco2, a.langelier?.lsi,
-        a.chargeBalancePercent, a.chargeBalance?.acceptable, a.calculatedScUsPerCm, used.join('; '),
+        a.chargeBalancePercent, a.chargeBalance?.acceptable, a.calculatedScUsPerCm, a.oxygen?.percentSaturation, used.join('; '),
         checks.filter((c) => c.status === 'fail').map((c) => c.id).join('; '),
         [...new Set(a.warnings.map((w) => w.code))].join('; '),
         differs === undefined ? '' : differs ? 'yes' : 'no',

@@ -20,7 +20,10 @@ describe('office recompute', () => {
       expect(r.office_error).toBe('');
       expect(Number(r.office_si_calcite)).toBeCloseTo(Number(r.si_calcite), 9);
       expect(r.office_differs_from_field).toBe('no');
+      // DO saturation now comes from the engine (salinity from SC, the row's pressure): fresh water, same figure
+      if (r.do_saturation_pct) expect(Number(r.office_do_saturation_pct)).toBeCloseTo(Number(r.do_saturation_pct), 0);
     }
+    expect(rows.some((r) => r.office_do_saturation_pct !== '')).toBe(true);
   });
   it('joined with a lab report, fills the missing ions and checks the balance (Standard Methods 1030 E)', () => {
     const { rows } = parseCsv(recomputeCsv(fx('demo-day.csv'), fx('demo-lab.csv')));
