@@ -250,7 +250,7 @@ export function titrationAlkalinity(input: TitrationInput): TitrationResult {
   if (acid.length < profile.titration.minGranPoints) {
     warnings.push({
       code: 'too-few-points-past-endpoint',
-      message: `Only ${acid.length} point(s) below pH 4.2: titrate on to about pH 3.5 with at least ${profile.titration.minGranPoints} points past the endpoint for a Gran endpoint.`,
+      message: `${acid.length === 0 ? 'No point' : acid.length === 1 ? 'Only one point' : `Only ${acid.length} points`} below pH 4.2 yet: keep adding acid to about pH 3.5, with at least ${profile.titration.minGranPoints} points past the endpoint, for a Gran endpoint.`,
       field: 'points',
     });
   }

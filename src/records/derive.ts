@@ -26,6 +26,7 @@ import {
 import type { KitResult, Sample, Settings, TimedValue } from './schema';
 
 const msOf = (iso: string) => Date.parse(iso);
+const READING_WORDS: Record<string, string> = { temperature: 'Water temperature', pH: 'pH', sc: 'Conductance', do: 'Dissolved oxygen' };
 
 /** The value to report from repeated readings: the stabilization median (all values if fewer than N). */
 export function reportedValue(values: TimedValue[] | undefined, parameter: 'temperature' | 'pH' | 'sc' | 'do', profile: MethodProfile): { value?: number; stability?: StabilizationResult } {
@@ -193,7 +194,7 @@ export function deriveSample(sample: Pick<Sample, 'field' | 'pressure' | 'lab'>,
     warnings.push(...out.analysis.warnings);
     if (out.titration) warnings.push(...out.titration.warnings);
     for (const [param, st] of Object.entries(stability)) {
-      if (st && !st.stable && st.window.length > 1) warnings.push({ code: 'not-stable', message: `${param}: ${st.reason}`, field: param });
+      if (st && !st.stable && st.window.length > 1) warnings.push({ code: 'not-stable', message: `${READING_WORDS[param] ?? param}: ${st.reason}`, field: param });
     }
   } catch (e) {
     if (e instanceof InputError) out.error = { field: e.field, message: e.message };

@@ -72,7 +72,7 @@ export function App() {
       <header class="topbar">
         <div class="brand">
           <img src={`${import.meta.env.BASE_URL}icons/icon-192.png`} alt="" width="32" height="32" />
-          <span>Bankside</span>
+          <span class="brand-name">Bankside</span>
         </div>
         <StatusBar />
       </header>

@@ -107,15 +107,17 @@ describe('the field app at phone size, offline', () => {
     const verdict = page.getByTestId('check-verdict');
     await expect(verdict.textContent()).resolves.toMatch(/Pass.*Slope 99\.\d % of Nernst, offset -3\.0 mV/);
     await page.getByRole('button', { name: 'Save check' }).click();
-    await page.getByText('Saved: pH passed.').waitFor();
-    await expect(page.locator('.cards .card', { hasText: 'pH · ✓ pass' }).count()).resolves.toBeGreaterThan(1);
+    await page.getByText('Saved: pH check passed.').waitFor();
+    await expect(page.locator('.cards .card', { hasText: 'pH check · ✓ pass' }).count()).resolves.toBeGreaterThan(1);
     await shot(page, 'meter-checks');
   });
 
   it('shows a site history chart loaded on demand', async () => {
     await page.goto(served.url + '#/sites');
     await page.getByRole('link', { name: /WF-02/ }).click();
-    await page.locator('.chart canvas').waitFor({ timeout: 10_000 });
+    await page.locator('.chart canvas').first().waitFor({ timeout: 10_000 });
+    // two panels: SI with its band and the SI = 0 line, log pCO₂ below
+    await expect(page.locator('.chart canvas').count()).resolves.toBe(2);
     await shot(page, 'site-chart');
   });
 

@@ -1,9 +1,13 @@
 import type { ComponentChildren } from 'preact';
-import { ATMOSPHERIC_LOG_PCO2, isNotice } from '../../chemistry';
+import { ATMOSPHERIC_LOG_PCO2 } from '../../chemistry';
 import type { Derived } from '../../records/derive';
 import { noteFor } from '../methods';
 import { BandBudget } from './BandBudget';
 import { SiGauge, StateBadge } from './State';
+import { Icon } from './Icon';
+import { splitWarnings } from '../warning-kinds';
+
+const TITRATION_METHOD_WORDS: Record<string, string> = { gran: 'Gran function', inflection: 'inflection point', 'fixed-endpoint': 'fixed pH 4.5 endpoint', none: 'no endpoint' };
 
 const f = (v: number | undefined, d = 2) => (v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d));
 const sign = (v: number | undefined, d = 2) => (v === undefined ? '—' : (v > 0 ? '+' : v < 0 ? '−' : '') + Math.abs(v).toFixed(d));
@@ -31,6 +35,7 @@ function Row({ label, value, note, testId, children }: { label: string; value: s
       <summary>
         <span class="result-label">{label}</span>
         <span class="result-value" data-testid={testId}>{value}</span>
+        <Icon name="info" size={20} />
       </summary>
       <div class="result-note">
         {children}
@@ -63,8 +68,7 @@ export function ResultsPanel({ d }: { d: Derived }) {
     );
   }
   const si = a.saturationIndex;
-  const actions = d.warnings.filter((w) => !isNotice(w));
-  const notices = d.warnings.filter(isNotice);
+  const w = splitWarnings(d.warnings);
   const times = a.logPco2 !== undefined ? Math.pow(10, a.logPco2 - ATMOSPHERIC_LOG_PCO2) : undefined;
   return (
     <section class="results" aria-label="Results" aria-live="polite">
@@ -120,28 +124,29 @@ export function ResultsPanel({ d }: { d: Derived }) {
           </Row>
         )}
         {d.titration && d.titration.alkalinityMgLCaCO3 !== undefined && (
-          <Row label="Alkalinity (titration)" value={`${f(d.titration.alkalinityMgLCaCO3, 1)} mg/L as CaCO₃, ${d.titration.method}`} note="titration" />
+          <Row label="Alkalinity (titration)" value={`${f(d.titration.alkalinityMgLCaCO3, 1)} mg/L as CaCO₃, ${TITRATION_METHOD_WORDS[d.titration.method] ?? d.titration.method}`} note="titration" />
         )}
       </div>
-      {actions.length > 0 && (
+      {w.action.length > 0 && (
         <div class="warnings">
           <h3>Check before you leave the site</h3>
           <ul>
-            {actions.map((w, i) => (
-              <li key={`${w.code}-${i}`} data-code={w.code}>
-                <span aria-hidden="true">⚠ </span>
-                {w.message}
+            {w.action.map((x, i) => (
+              <li key={`${x.code}-${i}`} data-code={x.code}>
+                <Icon name="warn" size={20} /> {x.message}
               </li>
             ))}
           </ul>
         </div>
       )}
-      {notices.length > 0 && (
+      {w.notice.length > 0 && (
         <details class="notices">
-          <summary>Notes on this result ({notices.length})</summary>
+          <summary>Notes on this result ({w.notice.length})</summary>
           <ul>
-            {notices.map((w, i) => (
-              <li key={`${w.code}-${i}`} data-code={w.code}>{w.message}</li>
+            {w.notice.map((x, i) => (
+              <li key={`${x.code}-${i}`} data-code={x.code}>
+                <Icon name="info" size={20} /> {x.message}
+              </li>
             ))}
           </ul>
         </details>

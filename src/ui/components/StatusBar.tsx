@@ -1,5 +1,6 @@
 import { useEffect, useState } from 'preact/hooks';
 import { applyUpdate, subscribeSw, swState } from '../sw-bridge';
+import { Icon } from './Icon';
 
 /** Shows whether the app will open with no signal, and offers a waiting update. */
 export function StatusBar() {
@@ -23,7 +24,7 @@ export function StatusBar() {
     swState.offline === 'ready'
       ? 'Ready offline'
       : swState.offline === 'checking'
-        ? 'Preparing offline use…'
+        ? 'Preparing offline…'
         : swState.offline === 'unsupported'
           ? 'This browser cannot work offline'
           : 'Offline setup failed: keep signal and reload';
@@ -31,10 +32,13 @@ export function StatusBar() {
   return (
     <div class="status" role="status" aria-live="polite">
       <span class={`chip chip-${swState.offline}`} data-testid="offline-state">
-        <span aria-hidden="true">{swState.offline === 'ready' ? '✓ ' : '… '}</span>
-        {offlineText}
+        <Icon name={swState.offline === 'ready' ? 'offline' : swState.offline === 'checking' ? 'waiting' : 'warn'} size={16} />
+        <span class="chip-text">{offlineText}</span>
       </span>
-      <span class="chip chip-net">{online ? 'Signal' : 'No signal'}</span>
+      <span class="chip chip-net">
+        <Icon name={online ? 'signal' : 'no-signal'} size={16} />
+        <span class="chip-text">{online ? 'Signal' : 'No signal'}</span>
+      </span>
       {swState.updateWaiting && (
         <div class="update-notice">
           <span>A new version of Bankside is ready. Your open entry is saved before it loads.</span>

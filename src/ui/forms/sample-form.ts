@@ -64,11 +64,18 @@ export interface SampleForm {
   qualifiers: Array<'estimated' | 'unstable' | 'outside-calibration' | 'suspect'>;
 }
 
-export function emptyForm(now = new Date()): SampleForm {
+/** What a new sample starts with: the operator as crew, the usual units from Settings. */
+export interface FormDefaults {
+  crew?: string;
+  units?: { alkalinity?: SampleForm['alkUnit']; conductance?: SampleForm['condUnit']; pressure?: SampleForm['pressureUnit']; do?: SampleForm['doUnit'] };
+}
+
+export function emptyForm(now = new Date(), defaults: FormDefaults = {}): SampleForm {
+  const u = defaults.units ?? {};
   return {
     siteId: '',
     time: isoWithOffset(now),
-    crew: '',
+    crew: defaults.crew ?? '',
     qcType: 'environmental',
     parentId: '',
     method: 'in-situ',
@@ -76,19 +83,19 @@ export function emptyForm(now = new Date()): SampleForm {
     weather: '',
     temp: [{ v: '', t: '' }],
     condMode: 'sc',
-    condUnit: 'uS/cm',
+    condUnit: u.conductance ?? 'uS/cm',
     cond: [{ v: '', t: '' }],
     ecTempC: '',
     alpha: '0.0191',
     pH: [{ v: '', t: '' }],
-    doUnit: 'mg/L',
+    doUnit: u.do ?? 'mg/L',
     do: [{ v: '', t: '' }],
     pressure: '',
-    pressureUnit: 'hPa',
+    pressureUnit: u.pressure ?? 'hPa',
     pressureSource: 'station',
     alkMode: 'direct',
     alk: '',
-    alkUnit: 'mg/L CaCO3',
+    alkUnit: u.alkalinity ?? 'mg/L CaCO3',
     titSampleMl: '100',
     titNormality: '',
     titCf: '1',

@@ -6,6 +6,9 @@ import { listCalibrationsForDay, listInstruments, saveCalibration, saveInstrumen
 import { Choice, SelectField, TextField } from '../components/Field';
 import type { MethodProfile } from '../../chemistry';
 import { useLive, useProfile, useSettings } from '../data';
+import { showTime } from '../format';
+
+const CHECK_WORDS: Record<string, string> = { pH: 'pH check', sc: 'SC check', do: 'DO check' };
 import { parseDecimal } from '../forms/parse';
 
 type Param = 'pH' | 'sc' | 'do';
@@ -84,7 +87,7 @@ export function ChecksScreen() {
     };
     try {
       await saveCalibration(input, settings.operator || 'field crew');
-      setMsg(`Saved: ${param} ${verdict.pass ? 'passed' : 'FAILED'}.`);
+      setMsg(`Saved: ${CHECK_WORDS[param]} ${verdict.pass ? 'passed' : 'failed: recalibrate before sampling'}.`);
     } catch (e) {
       setErr(toStoreError(e).message);
     }
@@ -154,7 +157,7 @@ export function ChecksScreen() {
         <ul class="cards">
           {(events.data ?? []).map((c) => (
             <li key={c.id} class="card">
-              <span class="card-title">{new Date(c.time).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })} · {c.parameter} · {c.pass ? '✓ pass' : '✗ fail'}</span>
+              <span class="card-title">{showTime(c.time)} · {CHECK_WORDS[c.parameter] ?? c.parameter} · {c.pass ? '✓ pass' : '✗ fail'}</span>
               <span class="muted">{describe(c, profile)} · {instrumentList.find((i) => i.id === c.instrumentId)?.name ?? c.instrumentId} · profile {c.profileId} v{c.profileVersion}</span>
             </li>
           ))}

@@ -67,15 +67,17 @@ export function LabImport() {
       {fileErrors.map((e) => <p key={e} class="field-error">{e}</p>)}
       {rows.length > 0 && (
         <>
-          <table class="table">
-            <caption>{rows.filter((r) => r.errors.length === 0).length} of {rows.length} rows ready</caption>
-            <thead><tr><th scope="col">Row</th><th scope="col">Sample</th><th scope="col">Parameter</th><th scope="col">Value</th><th scope="col">Problem</th></tr></thead>
-            <tbody>
-              {rows.slice(0, 30).map((r) => (
-                <tr key={r.row}><td>{r.row}</td><td>{r.sampleId}</td><td>{r.parameter}</td><td>{r.value ?? ''} {r.unit}</td><td class={r.errors.length ? 'field-error' : ''}>{r.errors.join('; ') || 'ok'}</td></tr>
-              ))}
-            </tbody>
-          </table>
+          <p class="lead" role="status">{rows.filter((r) => r.errors.length === 0).length} of {rows.length} rows ready</p>
+          <ul class="cards row-cards" aria-label="Lab rows to import">
+            {rows.slice(0, 30).map((r) => (
+              <li key={r.row} class={r.errors.length ? 'card bad-row' : 'card'}>
+                <span class="card-title">Row {r.row} · {r.parameter} {r.value ?? ''} {r.unit}</span>
+                <span class="muted">Sample {r.sampleId}</span>
+                <span class={r.errors.length ? 'field-error' : 'stable yes'}>{r.errors.join('; ') || 'Ready'}</span>
+              </li>
+            ))}
+          </ul>
+          {rows.length > 30 && <p class="muted">… and {rows.length - 30} more rows.</p>}
           <button type="button" class="btn btn-primary" onClick={async () => {
             const r = await applyLabRows(rows, settings.operator || 'office import');
             setMsg(`Stored ${r.values} lab values on ${r.samples} samples; ${r.skipped} rows skipped. Field values were not changed.`);

@@ -1,8 +1,9 @@
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
-import { deriveSample } from '../../records/derive';
+import type { Derived } from '../../records/derive';
+import type { ChemWarning, StabilizationResult } from '../../chemistry';
 import { isoWithOffset } from '../../records/time';
 import type { Sample } from '../../records/schema';
-import { setBeforeClose } from '../../store/connection';
+import { onChange, setBeforeClose } from '../../store/connection';
 import {
   deleteDraft,
   deleteSample,
@@ -17,14 +18,20 @@ import {
   StoreError,
   toStoreError,
 } from '../../store/records';
-import { Choice, Section, SelectField, TextField } from '../components/Field';
+import { Choice, CoreField, Fold, moveOnEnter, SelectField, TextField, TimeField } from '../components/Field';
+import { Icon } from '../components/Icon';
 import { RepeatedReadings } from '../components/Readings';
 import { ResultsPanel } from '../components/Results';
 import { StateBadge } from '../components/State';
 import { SampleCode } from '../components/SampleCode';
 import { TitrationPlot } from '../components/TitrationPlot';
 import { useLive, useProfile, useSettings } from '../data';
-import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm } from '../forms/sample-form';
+import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm, type TimedRaw } from '../forms/sample-form';
+import { deriveLive } from '../forms/live-derive';
+import { useFolds } from '../folds';
+import { showMoment, showTime } from '../format';
+import { ACTION_WORDS, describeChange } from '../history-words';
+import { splitWarnings } from '../warning-kinds';
 import { go } from '../router';
 import { registerDraftSaver } from '../sw-bridge';
 import { downloadText } from '../../exchange/share';
@@ -52,6 +59,8 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
   const draftId = draftIdFor(sampleId);
   const formRef = useRef<SampleForm | null>(null);
   const dirty = useRef(false);
+  /** a new form nobody has typed in and no draft replaced: Settings' defaults may still fill it */
+  const fresh = useRef(!sampleId);
   formRef.current = form;
 
   // Load: an unsaved draft wins over the stored record (nothing typed is lost).
@@ -69,16 +78,24 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
           await putDraft({ id: `${draftId}:${draft.updatedAt}`, kind: 'sample', form: draft.form });
           setOlderDraft({ form: restored, at: draft.updatedAt });
         } else {
+          fresh.current = false;
           setForm(restored);
           setRestoredAt(draft.updatedAt);
         }
       } else if (existing) setForm(formFromSample(existing));
-      else if (!dirty.current) setForm((f) => (f && settings.operator && !f.crew ? { ...f, crew: settings.operator } : f));
     })().catch(() => live && setForm(emptyForm()));
     return () => {
       live = false;
     };
   }, [draftId]);
+
+  // Deleted or restored (here or in another tab): the record's state follows, the form is untouched.
+  useEffect(() => {
+    if (!sampleId) return;
+    return onChange((n) => {
+      if (n.store === 'samples') void getSample(sampleId).then((x) => x && setStored(x));
+    });
+  }, [sampleId]);
 
   // Saves are chained: whoever asks for a flush (a timer, the page hiding, an app update, another
   // tab's upgrade) waits for any save already under way, so nothing closes the db mid-save.
@@ -122,15 +139,26 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
 
   const update = (patch: Partial<SampleForm>) => {
     dirty.current = true;
+    fresh.current = false;
     setForm((f) => (f ? { ...f, ...patch } : f));
   };
 
+  // A new, untouched form takes the crew and the usual units from Settings once they are read.
+  useEffect(() => {
+    if (sampleId || !fresh.current) return;
+    const u = settings.units;
+    setForm((f) => (f ? { ...f, crew: f.crew || settings.operator, condUnit: u.conductance, doUnit: u.do, alkUnit: u.alkalinity, pressureUnit: u.pressure } : f));
+  }, [settings]);
+
+  const folds = useFolds(settings.operator);
   const parsed = useMemo(() => (form ? formToSample(form) : null), [form]);
   // formToSample fills every default the derivation reads (kits, ions, alpha), so no schema pass is needed here.
-  const derived = useMemo(() => (parsed ? deriveSample({ field: parsed.record.field as Sample['field'], pressure: parsed.record.pressure, lab: stored?.lab ?? [] }, settings, profile) : null), [parsed, settings, stored, profile]);
+  const live = useMemo(() => (form && parsed ? deriveLive(form, parsed.record, stored?.lab ?? [], settings, profile) : null), [parsed, settings, stored, profile]);
 
-  if (!form || !parsed || !derived) return <p class="muted">Opening…</p>;
-  const e = parsed.errors;
+  if (!form || !parsed || !live) return <p class="muted">Opening…</p>;
+  const derived = live.derived;
+  const e: Record<string, string> = { ...parsed.errors, ...live.errors };
+  const warn = splitWarnings(derived.warnings);
 
   const save = async () => {
     setSaveError(null);
@@ -153,103 +181,152 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
   };
 
   const siteList = sites.data ?? [];
+  const site = siteList.find((x) => x.id === form.siteId);
   const condUnitLabel = form.condUnit === 'mS/cm' ? 'mS/cm' : 'µS/cm';
   const st = derived.stability;
+  const a = derived.analysis;
+  const fold = (id: string, fallback = false) => ({ id, open: folds.isOpen(id, fallback), onToggle: (o: boolean) => folds.set(id, o) });
+  const extraReadings = form.temp.length + form.cond.length + form.pH.length + form.do.length - 4;
+  const ionCount = ION_FIELDS.filter((f) => form.ions[f.key].trim()).length + (form.totalHardness.trim() ? 1 : 0);
+  const kitLabel = form.kitAnalyte === 'calcium' ? 'Calcium (kit)' : 'Calcium hardness (kit)';
+  const stab = (x: StabilizationResult | undefined) =>
+    x && x.window.length > 1 ? <span class={x.stable ? 'stable yes' : 'stable no'}>{x.stable ? `Stable, reports ${x.median}` : 'Still drifting'}</span> : null;
+  const deleted = !!stored?.deletedAt;
+
   return (
     <div class="editor">
-      <div class="mini-result" aria-hidden="true">
-        <StateBadge state={derived.analysis?.calciteState ?? 'unknown'} />
-        {derived.analysis?.saturationIndex.calcite !== undefined && (
-          <span class="mini-si">SI {derived.analysis.saturationIndex.calcite.toFixed(2)} ± {derived.analysis.calciteSiUncertainty!.toFixed(2)}</span>
-        )}
-      </div>
       {stored?.sampleCode && <p class="sample-code-line">Sample ID <SampleCode code={stored.sampleCode} /></p>}
       {restoredAt && (
         <p class="notice" role="status">
-          Restored your unsaved entry from {new Date(restoredAt).toLocaleTimeString()}.{' '}
-          <button type="button" class="linkish" onClick={async () => { await deleteDraft(draftId); setRestoredAt(''); setForm(stored ? formFromSample(stored) : emptyForm()); }}>
+          Restored your unsaved entry from {showMoment(restoredAt)}.{' '}
+          <button type="button" class="linkish" onClick={async () => { await deleteDraft(draftId); setRestoredAt(''); setForm(stored ? formFromSample(stored) : emptyForm(new Date(), { crew: settings.operator, units: settings.units })); }}>
             Discard it
           </button>
         </p>
       )}
       {olderDraft && (
         <p class="notice" role="status">
-          An unsaved entry from {new Date(olderDraft.at).toLocaleTimeString()} was also found.{' '}
+          An unsaved entry from {showMoment(olderDraft.at)} was also found.{' '}
           <button type="button" class="linkish" onClick={async () => { if (form) await putDraft({ id: `${draftId}:${isoWithOffset()}`, kind: 'sample', form: form as unknown as Record<string, unknown> }); dirty.current = true; setForm(olderDraft.form); setOlderDraft(null); }}>Open it instead</button>
         </p>
       )}
-      {stored?.deletedAt && (
-        <p class="notice warn">This sample is deleted. <button type="button" class="btn btn-small" onClick={() => restoreSample(stored.id, settings.operator || 'field crew').then(() => go('#/today'))}>Undo delete</button></p>
-      )}
+      {deleted && <DeletedNotice id={stored!.id} by={settings.operator} />}
       <div class="editor-grid">
-        <form class="editor-form" onSubmit={(ev) => { ev.preventDefault(); void save(); }} noValidate>
-          <Section title="Where and when">
-            <SelectField key={`site-${siteList.length}`} id="site" label="Site" value={form.siteId} onChange={(v) => update({ siteId: v })} error={missing.includes('site') ? 'Pick a site or add one here.' : undefined}>
-              <option value="">Choose a site…</option>
-              {siteList.map((s) => (
-                <option key={s.id} value={s.id}>{s.code} · {s.name}</option>
-              ))}
-            </SelectField>
-            <NewSiteInline onCreated={(id) => update({ siteId: id })} />
-            <TextField id="time" label="Time (with UTC offset)" value={form.time} error={e.time} onInput={(v) => update({ time: v })} hint="Filled in now; edit if you are entering later." />
-            <TextField id="crew" label="Crew (comma-separated)" value={form.crew} onInput={(v) => update({ crew: v })} />
-            <Choice name="qc" label="Sample type" value={form.qcType} onChange={(v) => update({ qcType: v })} options={[{ value: 'environmental', label: 'Environmental' }, { value: 'replicate', label: 'Replicate' }, { value: 'blank', label: 'Blank' }]} />
-            {form.qcType !== 'environmental' && (
-              <TextField id="parent" label="Parent sample ID" value={form.parentId} onInput={(v) => update({ parentId: v })} hint="The environmental sample this one checks." />
-            )}
-          </Section>
+        <form class="editor-form" onSubmit={(ev) => { ev.preventDefault(); void save(); }} onKeyDown={moveOnEnter} noValidate>
+          <div class="core" aria-label="Site and core readings">
+            <div class="site-row">
+              <SelectField key={`site-${siteList.length}`} id="site" label="Site" value={form.siteId} onChange={(v) => update({ siteId: v })} error={missing.includes('site') ? 'Pick a site or add one here.' : undefined}>
+                <option value="">Choose a site…</option>
+                {siteList.map((s) => (
+                  <option key={s.id} value={s.id}>{s.code} · {s.name}</option>
+                ))}
+              </SelectField>
+              <NewSiteInline onCreated={(id) => update({ siteId: id })} />
+            </div>
+            <Fold
+              {...fold('when')}
+              title="When, who"
+              extra={[showTime(form.time), form.crew || 'no crew yet', form.qcType !== 'environmental' ? QC_WORDS[form.qcType] : ''].filter(Boolean).join(' · ')}
+            >
+              <TimeField id="time" label="Sampling time" iso={form.time} error={e.time} onChange={(v) => update({ time: v })} />
+              <TextField id="crew" label="Crew (comma-separated)" value={form.crew} onInput={(v) => update({ crew: v })} />
+              <Choice name="qc" label="Sample type" value={form.qcType} onChange={(v) => update({ qcType: v })} options={[{ value: 'environmental', label: 'Environmental' }, { value: 'replicate', label: 'Replicate' }, { value: 'blank', label: 'Blank' }]} />
+              {form.qcType !== 'environmental' && (
+                <TextField id="parent" label="Parent sample ID" value={form.parentId} onInput={(v) => update({ parentId: v })} hint="The environmental sample this one checks." />
+              )}
+            </Fold>
 
-          <Section title="Field readings">
-            <RepeatedReadings id="temp" label="Water temperature" unit="°C" rows={form.temp} errors={e} errorKey="temp" stability={st.temperature} onChange={(rows) => update({ temp: rows })} />
+            <CoreField id="temp-0" label="Water temperature" unit="°C" value={form.temp[0]!.v} error={e['temp.0']} next="cond-0" status={stab(st.temperature)} onInput={(v) => update({ temp: setFirst(form.temp, v) })} />
+            <CoreField
+              id="cond-0"
+              label={form.condMode === 'sc' ? 'Specific conductance' : 'Conductivity (raw EC)'}
+              value={form.cond[0]!.v}
+              error={e['cond.0']}
+              next="ph-0"
+              status={stab(st.sc)}
+              onInput={(v) => update({ cond: setFirst(form.cond, v) })}
+              unit={<UnitPick id="condUnit" label="Conductance unit" value={form.condUnit} onChange={(v) => update({ condUnit: v as SampleForm['condUnit'] })} options={[['uS/cm', 'µS/cm'], ['mS/cm', 'mS/cm']]} />}
+            />
+            <CoreField id="ph-0" label="pH" value={form.pH[0]!.v} error={e['pH.0']} next="do-0" status={stab(st.pH)} onInput={(v) => update({ pH: setFirst(form.pH, v) })} />
+            <CoreField
+              id="do-0"
+              label="Dissolved oxygen"
+              value={form.do[0]!.v}
+              error={e['do.0']}
+              next={form.alkMode === 'direct' ? 'alk' : 'kit'}
+              status={stab(st.do)}
+              onInput={(v) => update({ do: setFirst(form.do, v) })}
+              unit={<UnitPick id="doUnit" label="Dissolved oxygen unit" value={form.doUnit} onChange={(v) => update({ doUnit: v as SampleForm['doUnit'] })} options={[['mg/L', 'mg/L'], ['%', '% sat.']]} />}
+            />
+            {form.alkMode === 'direct' ? (
+              <CoreField
+                id="alk"
+                label="Alkalinity"
+                value={form.alk}
+                error={e.alk}
+                next="kit"
+                onInput={(v) => update({ alk: v })}
+                unit={<UnitPick id="alkUnit" label="Alkalinity unit" value={form.alkUnit} onChange={(v) => update({ alkUnit: v as SampleForm['alkUnit'] })} options={[['mg/L CaCO3', 'mg/L CaCO₃'], ['meq/L', 'meq/L'], ['mg/L HCO3', 'mg/L HCO₃']]} />}
+              />
+            ) : (
+              <p class="core-row core-note">
+                <span>Alkalinity</span>
+                <span>{derived.titration?.alkalinityMgLCaCO3 !== undefined ? `${derived.titration.alkalinityMgLCaCO3.toFixed(1)} mg/L as CaCO₃ from the titration` : 'from the titration points below'}</span>
+              </p>
+            )}
+            <CoreField
+              id="kit"
+              label={kitLabel}
+              value={form.kitValue}
+              error={e.kitValue}
+              onInput={(v) => update({ kitValue: v })}
+              unit={
+                <UnitPick id="kitUnit" label="Kit reports" value={`${form.kitAnalyte}|${form.kitUnit}`} onChange={(v) => { const [an, u] = v.split('|'); update({ kitAnalyte: an as SampleForm['kitAnalyte'], kitUnit: u as SampleForm['kitUnit'] }); }}
+                  options={[['calcium|mg/L', 'mg/L Ca'], ['calcium-hardness|mg/L CaCO3', 'mg/L CaCO₃'], ['calcium|mmol/L', 'mmol/L Ca']]} />
+              }
+            />
+          </div>
+
+          <SaveBlock
+            derived={derived}
+            action={warn.action}
+            missingHints={warn.missing}
+            missing={missing}
+            saving={saving}
+            label={stored ? 'Save changes' : 'Save sample'}
+            disabled={deleted}
+          />
+          {saveError && (
+            <div class="notice bad" role="alert">
+              <p>{saveError.message}</p>
+              <button type="button" class="btn" onClick={() => downloadText(`bankside-unsaved-entry-${Date.now()}.json`, JSON.stringify(form, null, 2), 'application/json')}>
+                Download this entry
+              </button>
+            </div>
+          )}
+
+          <Fold {...fold('readings')} title="Repeated readings" extra={extraReadings > 0 ? `${extraReadings} more` : undefined}>
+            <RepeatedReadings fromSecond id="temp" label="Water temperature" unit="°C" rows={form.temp} errors={e} errorKey="temp" stability={st.temperature} onChange={(rows) => update({ temp: rows })} />
+            <RepeatedReadings fromSecond id="cond" label={form.condMode === 'sc' ? 'Specific conductance' : 'Conductivity (raw EC)'} unit={condUnitLabel} rows={form.cond} errors={e} errorKey="cond" stability={st.sc} onChange={(rows) => update({ cond: rows })} />
+            <RepeatedReadings fromSecond id="ph" label="pH" unit="" rows={form.pH} errors={e} errorKey="pH" stability={st.pH} onChange={(rows) => update({ pH: rows })} />
+            <RepeatedReadings fromSecond id="do" label="Dissolved oxygen" unit={form.doUnit === '%' ? '% sat.' : form.doUnit} rows={form.do} errors={e} errorKey="do" stability={st.do} onChange={(rows) => update({ do: rows })} />
             <Choice name="condMode" label="Conductance as read" value={form.condMode} onChange={(v) => update({ condMode: v })} options={[{ value: 'sc', label: 'SC at 25 °C' }, { value: 'ec', label: 'Raw EC' }]} />
-            <Choice name="condUnit" label="Conductance unit" value={form.condUnit} onChange={(v) => update({ condUnit: v })} options={[{ value: 'uS/cm', label: 'µS/cm' }, { value: 'mS/cm', label: 'mS/cm' }]} />
-            <RepeatedReadings id="cond" label={form.condMode === 'sc' ? 'Specific conductance' : 'Conductivity (raw EC)'} unit={condUnitLabel} rows={form.cond} errors={e} errorKey="cond" stability={st.sc} onChange={(rows) => update({ cond: rows })} />
             {form.condMode === 'ec' && (
               <>
                 <TextField id="ecTemp" label="Temperature of the EC reading" unit="°C" numeric value={form.ecTempC} error={e.ecTempC} onInput={(v) => update({ ecTempC: v })} hint="Leave empty to use the water temperature." />
                 <TextField id="alpha" label="Compensation coefficient α" unit="/°C" numeric value={form.alpha} error={e.alpha} onInput={(v) => update({ alpha: v })} />
               </>
             )}
-            <RepeatedReadings id="ph" label="pH" unit="" rows={form.pH} errors={e} errorKey="pH" stability={st.pH} onChange={(rows) => update({ pH: rows })} />
-            <Choice name="doUnit" label="Dissolved oxygen unit" value={form.doUnit} onChange={(v) => update({ doUnit: v })} options={[{ value: 'mg/L', label: 'mg/L' }, { value: '%', label: '% saturation' }]} />
-            <RepeatedReadings id="do" label="Dissolved oxygen" unit={form.doUnit} rows={form.do} errors={e} errorKey="do" stability={st.do} onChange={(rows) => update({ do: rows })} />
-            <div class="row2">
-              <TextField id="pressure" label="Barometric pressure (true, at the site)" unit={form.pressureUnit} numeric value={form.pressure} error={e.pressure} onInput={(v) => update({ pressure: v })} />
-              <SelectField id="pressureUnit" label="Pressure unit" value={form.pressureUnit} onChange={(v) => update({ pressureUnit: v as SampleForm['pressureUnit'] })}>
-                <option value="hPa">hPa</option>
-                <option value="kPa">kPa</option>
-                <option value="mmHg">mmHg</option>
-              </SelectField>
-            </div>
-          </Section>
+          </Fold>
 
-          <Section title="Alkalinity and calcium">
-            <Choice name="alkMode" label="Alkalinity" value={form.alkMode} onChange={(v) => update({ alkMode: v })} options={[{ value: 'direct', label: 'Enter result' }, { value: 'titration', label: 'Titration points' }]} />
-            {form.alkMode === 'direct' ? (
-              <div class="row2">
-                <TextField id="alk" label="Alkalinity" unit={form.alkUnit} numeric value={form.alk} error={e.alk} onInput={(v) => update({ alk: v })} />
-                <SelectField id="alkUnit" label="Alkalinity unit" value={form.alkUnit} onChange={(v) => update({ alkUnit: v as SampleForm['alkUnit'] })}>
-                  <option value="mg/L CaCO3">mg/L as CaCO₃</option>
-                  <option value="meq/L">meq/L</option>
-                  <option value="mg/L HCO3">mg/L as HCO₃</option>
-                </SelectField>
-              </div>
-            ) : (
-              <TitrationEntry form={form} errors={e} update={update} />
-            )}
+          <Fold {...fold('titration', form.alkMode === 'titration')} title="Alkalinity titration" extra={form.alkMode === 'titration' ? `${form.titPoints.filter((x) => x.pH.trim()).length} points` : undefined}>
+            <Choice name="alkMode" label="Alkalinity" value={form.alkMode} onChange={(v) => update({ alkMode: v })} options={[{ value: 'direct', label: 'Type the result' }, { value: 'titration', label: 'Titration points' }]} />
+            {form.alkMode === 'titration' && <TitrationEntry form={form} errors={e} update={update} />}
             {form.alkMode === 'titration' && derived.titration && <TitrationPlot t={derived.titration} unit={form.titEquipment === 'buret' ? 'mL' : 'counts'} />}
-            <div class="row2">
-              <TextField id="kit" label={form.kitAnalyte === 'calcium' ? 'Calcium (kit)' : 'Calcium hardness (kit)'} unit={form.kitUnit} numeric value={form.kitValue} error={e.kitValue} onInput={(v) => update({ kitValue: v })} />
-              <SelectField id="kitUnit" label="Kit reports" value={`${form.kitAnalyte}|${form.kitUnit}`} onChange={(v) => { const [a, u] = v.split('|'); update({ kitAnalyte: a as SampleForm['kitAnalyte'], kitUnit: u as SampleForm['kitUnit'] }); }}>
-                <option value="calcium|mg/L">Calcium, mg/L</option>
-                <option value="calcium-hardness|mg/L CaCO3">Calcium hardness, mg/L as CaCO₃</option>
-                <option value="calcium|mmol/L">Calcium, mmol/L</option>
-              </SelectField>
-            </div>
-            <TextField id="totalHardness" label="Total hardness (kit, optional)" unit="mg/L as CaCO₃" numeric value={form.totalHardness} error={e.totalHardness} onInput={(v) => update({ totalHardness: v })} hint="With calcium hardness, gives magnesium." />
-          </Section>
+          </Fold>
 
-          <Section title="More ions and lab values (optional)" open={false} id="ions">
+          <Fold {...fold('ions')} title="More ions and lab values" extra={ionCount > 0 ? `${ionCount} entered` : undefined}>
+            <TextField id="totalHardness" label="Total hardness (kit)" unit="mg/L as CaCO₃" numeric value={form.totalHardness} error={e.totalHardness} onInput={(v) => update({ totalHardness: v })} hint="With calcium hardness, gives magnesium." />
             {ION_FIELDS.map((f) => (
               <TextField key={f.key} id={`ion-${f.key}`} label={f.label} unit={f.unit} numeric value={form.ions[f.key]} error={e[`ions.${f.key}`]} onInput={(v) => update({ ions: { ...form.ions, [f.key]: v } })} />
             ))}
@@ -259,12 +336,23 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
                 <ul>{stored.lab.map((l, i) => <li key={i}>{l.parameter}: {l.value} {l.unit}{l.qualifier ? ` (${l.qualifier})` : ''}</li>)}</ul>
               </div>
             )}
-          </Section>
+          </Fold>
 
-          <Section title="Conditions and remarks" open={false}>
+          <Fold {...fold('conditions')} title="Conditions" extra={[form.pressure ? `${form.pressure} ${form.pressureUnit}` : '', form.flow !== 'unknown' ? `flow ${form.flow}` : ''].filter(Boolean).join(' · ') || undefined}>
+            <div class="row2">
+              <TextField id="pressure" label="Barometric pressure (true, at the site)" unit={form.pressureUnit} numeric value={form.pressure} error={e.pressure} onInput={(v) => update({ pressure: v })} />
+              <SelectField id="pressureUnit" label="Pressure unit" value={form.pressureUnit} onChange={(v) => update({ pressureUnit: v as SampleForm['pressureUnit'] })}>
+                <option value="hPa">hPa</option>
+                <option value="kPa">kPa</option>
+                <option value="mmHg">mmHg</option>
+              </SelectField>
+            </div>
             <Choice name="flow" label="Flow" value={form.flow} onChange={(v) => update({ flow: v })} options={[{ value: 'low', label: 'Low' }, { value: 'normal', label: 'Normal' }, { value: 'high', label: 'High' }, { value: 'rising', label: 'Rising' }, { value: 'falling', label: 'Falling' }, { value: 'unknown', label: 'Unknown' }]} />
             <Choice name="method" label="Method" value={form.method} onChange={(v) => update({ method: v })} options={[{ value: 'in-situ', label: 'In situ' }, { value: 'flow-through', label: 'Flow-through cell' }, { value: 'grab', label: 'Grab' }]} />
             <TextField id="weather" label="Weather" value={form.weather} onInput={(v) => update({ weather: v })} />
+          </Fold>
+
+          <Fold {...fold('remarks')} title="Remarks and qualifiers" extra={form.remarks.trim() || form.qualifiers.length ? 'entered' : undefined}>
             <div class="field">
               <label for="remarks">Remarks</label>
               <textarea id="remarks" rows={3} value={form.remarks} onInput={(ev) => update({ remarks: (ev.currentTarget as HTMLTextAreaElement).value })} />
@@ -275,35 +363,107 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
                 {(['estimated', 'unstable', 'outside-calibration', 'suspect'] as const).map((q) => (
                   <label key={q} class={form.qualifiers.includes(q) ? 'choice-opt on' : 'choice-opt'}>
                     <input type="checkbox" checked={form.qualifiers.includes(q)} onChange={() => update({ qualifiers: form.qualifiers.includes(q) ? form.qualifiers.filter((x) => x !== q) : [...form.qualifiers, q] })} />
-                    {q.replace('-', ' ')}
+                    {QUALIFIER_WORDS[q]}
                   </label>
                 ))}
               </div>
             </fieldset>
-          </Section>
+          </Fold>
 
-          {missing.length > 0 && <p class="field-error" role="alert">Before saving, add: {missing.join('; ')}.</p>}
-          {saveError && (
-            <div class="notice bad" role="alert">
-              <p>{saveError.message}</p>
-              <button type="button" class="btn btn-small" onClick={() => downloadText(`bankside-unsaved-entry-${Date.now()}.json`, JSON.stringify(form, null, 2), 'application/json')}>
-                Download this entry
-              </button>
-            </div>
-          )}
-          <div class="actions">
-            <button type="submit" class="btn btn-primary btn-block" disabled={saving}>{saving ? 'Saving…' : stored ? 'Save changes' : 'Save sample'}</button>
-            {stored && !stored.deletedAt && (
-              <button type="button" class="btn btn-block" onClick={async () => { await deleteSample(stored.id, settings.operator || 'field crew'); go(`#/today?date=${stored.localDate}&deleted=${stored.id}`); }}>
-                Delete sample
-              </button>
-            )}
-          </div>
-          {stored && <History id={stored.id} />}
+          <Fold {...fold('results', true)} title="Results in full" extra={a?.saturationIndex.calcite !== undefined ? `SI ${a.saturationIndex.calcite.toFixed(2)}` : undefined}>
+            <ResultsPanel d={derived} />
+          </Fold>
+          {stored && <History id={stored.id} doUnit={form.doUnit} siteName={(id) => siteList.find((x) => x.id === id)?.code} />}
+          {stored && !deleted && <DeleteSample id={stored.id} by={settings.operator} />}
+          {stored && deleted && <DeletedNotice id={stored.id} by={settings.operator} />}
+          {site?.notes && <p class="muted site-note">{site.code}: {site.notes}</p>}
         </form>
-        <ResultsPanel d={derived} />
       </div>
     </div>
+  );
+}
+
+const QC_WORDS: Record<SampleForm['qcType'], string> = { environmental: 'environmental', replicate: 'replicate', blank: 'blank' };
+const QUALIFIER_WORDS: Record<SampleForm['qualifiers'][number], string> = { estimated: 'Estimated', unstable: 'Unstable', 'outside-calibration': 'Outside calibration', suspect: 'Suspect' };
+
+/** The first reading of a repeated parameter, typed in the core row; its time is the first keystroke's. */
+function setFirst(rows: TimedRaw[], v: string): TimedRaw[] {
+  const [first, ...rest] = rows;
+  return [{ v, t: first?.t || (v.trim() ? isoWithOffset() : '') }, ...rest];
+}
+
+/** A unit chosen beside its number (a native select: large, and the phone's own picker). */
+function UnitPick(p: { id: string; label: string; value: string; onChange: (v: string) => void; options: Array<[string, string]> }) {
+  return (
+    <select id={p.id} class="unit-pick" aria-label={p.label} value={p.value} onChange={(e) => p.onChange((e.currentTarget as HTMLSelectElement).value)}>
+      {p.options.map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+    </select>
+  );
+}
+
+/**
+ * Save, with what the crew must know at that moment right beside it: the live state and the
+ * warnings that call for action (re-measure, check a unit). Standing notices stay in the details.
+ */
+function SaveBlock(p: { derived: Derived; action: ChemWarning[]; missingHints: ChemWarning[]; missing: string[]; saving: boolean; label: string; disabled: boolean }) {
+  const a = p.derived.analysis;
+  const si = a?.saturationIndex.calcite;
+  return (
+    <div class="save-block" data-testid="save-block">
+      <div class="save-state">
+        <StateBadge state={a?.calciteState ?? 'unknown'} />
+        {si !== undefined && <span class="mini-si">SI {si.toFixed(2)} ± {(a!.calciteSiUncertainty ?? 0).toFixed(2)}</span>}
+      </div>
+      {p.derived.error && <p class="field-error" role="alert">{p.derived.error.message}</p>}
+      {p.action.length > 0 && (
+        <ul class="save-warnings" aria-label="Check before you leave the site">
+          {p.action.map((w, i) => (
+            <li key={`${w.code}-${i}`} data-code={w.code}>
+              <Icon name="warn" size={20} /> <span>{w.message}</span>
+            </li>
+          ))}
+        </ul>
+      )}
+      {p.action.length === 0 && p.missingHints.length > 0 && <p class="muted save-hint">{p.missingHints[0]!.message}</p>}
+      {p.missing.length > 0 && <p class="field-error" role="alert">Before saving, add: {p.missing.join('; ')}.</p>}
+      <button type="submit" class="btn btn-primary btn-block save-btn" disabled={p.saving || p.disabled}>
+        {p.saving ? 'Saving…' : p.label}
+      </button>
+    </div>
+  );
+}
+
+/** Delete asks once, in place; the sample then shows as deleted with Undo on this same screen. */
+function DeleteSample({ id, by }: { id: string; by: string }) {
+  const [asking, setAsking] = useState(false);
+  if (!asking) {
+    return (
+      <div class="danger-zone">
+        <button type="button" class="btn btn-block btn-quiet" onClick={() => setAsking(true)}>
+          <Icon name="trash" /> Delete this sample…
+        </button>
+      </div>
+    );
+  }
+  return (
+    <div class="danger-zone notice warn" role="alertdialog" aria-label="Delete this sample?">
+      <p><strong>Delete this sample?</strong> It leaves the day list and exports; you can undo it here.</p>
+      <div class="row2 always">
+        <button type="button" class="btn" onClick={() => setAsking(false)}>Keep it</button>
+        <button type="button" class="btn btn-danger" onClick={async () => { await deleteSample(id, by || 'field crew'); setAsking(false); }}>Delete</button>
+      </div>
+    </div>
+  );
+}
+
+function DeletedNotice({ id, by }: { id: string; by: string }) {
+  return (
+    <p class="notice warn deleted-notice" role="status">
+      This sample is deleted.{' '}
+      <button type="button" class="btn" onClick={() => restoreSample(id, by || 'field crew')}>
+        <Icon name="undo" /> Undo delete
+      </button>
+    </p>
   );
 }
 
@@ -343,7 +503,7 @@ function TitrationEntry({ form, errors, update }: { form: SampleForm; errors: Re
   );
 }
 
-function History({ id }: { id: string }) {
+function History({ id, doUnit, siteName }: { id: string; doUnit: string; siteName: (id: string) => string | undefined }) {
   const h = useLive(() => history(id), [id], ['samples']);
   if (!h.data || h.data.length === 0) return null;
   return (
@@ -352,9 +512,9 @@ function History({ id }: { id: string }) {
       <ol class="history">
         {h.data.map((r) => (
           <li key={r.id}>
-            <strong>{r.action}</strong> by {r.by || 'unknown'} at {new Date(r.at).toLocaleString()}
+            <strong>{ACTION_WORDS[r.action] ?? r.action}</strong> by {r.by || 'unknown'}, {showMoment(r.at)}
             {r.action === 'update' && (
-              <ul>{r.changes.slice(0, 12).map((c) => <li key={c.path}>{c.path}: {JSON.stringify(c.from)} → {JSON.stringify(c.to)}</li>)}</ul>
+              <ul>{r.changes.filter((c) => c.path !== 'updatedAt').slice(0, 12).map((c) => <li key={c.path}>{describeChange(c, doUnit, siteName)}</li>)}</ul>
             )}
           </li>
         ))}

@@ -8,11 +8,17 @@ import type { ExportLogEntry, OutboxItem, Sample } from '../../records/schema';
 import { todayLocal } from '../../records/time';
 import { createBackup } from '../../store/backup';
 import { listCalibrations, listSamplesBetween, listSamplesForSite, listSites } from '../../store/records';
-import { Choice, SelectField, TextField } from '../components/Field';
+import { Choice, DateField, SelectField } from '../components/Field';
+import { showMoment } from '../format';
 import { useLive, useProfile, useSettings } from '../data';
 import { requestBackgroundSync } from '../outbox-triggers';
 
 type Scope = 'day' | 'range' | 'site';
+
+const EXPORT_WORDS: Record<string, string> = {
+  'csv-wide': 'samples CSV', 'csv-long': 'values CSV', 'csv-calibrations': 'meter checks CSV', 'csv-titrations': 'titration points CSV',
+  geojson: 'map file', upload: 'upload', backup: 'backup',
+};
 
 const STATUS_WORDS: Record<OutboxItem['status'], string> = {
   queued: 'Queued: waits for signal',
@@ -91,8 +97,8 @@ export function SendScreen() {
       <Choice name="scope" label="Which samples" value={scope} onChange={setScope} options={[{ value: 'day', label: 'One day' }, { value: 'range', label: 'Date range' }, { value: 'site', label: 'One site' }]} />
       {scope !== 'site' ? (
         <div class="row2">
-          <TextField id="from" label={scope === 'day' ? 'Day (YYYY-MM-DD)' : 'From (YYYY-MM-DD)'} value={from} onInput={setFrom} />
-          {scope === 'range' && <TextField id="to" label="To (YYYY-MM-DD)" value={to} onInput={setTo} />}
+          <DateField id="from" label={scope === 'day' ? 'Day' : 'From'} value={from} onChange={setFrom} />
+          {scope === 'range' && <DateField id="to" label="To" value={to} onChange={setTo} />}
         </div>
       ) : (
         <SelectField id="send-site" label="Site" value={siteId} onChange={setSiteId}>
@@ -123,9 +129,9 @@ export function SendScreen() {
           {(outbox.data ?? []).map((o) => (
             <li key={o.id} class="card" data-status={o.status}>
               <span class="card-title">{o.fileName} · {o.sampleIds.length} samples</span>
-              <span>{STATUS_WORDS[o.status]}{o.status === 'queued' && o.nextAttemptAt ? ` (next try ${new Date(o.nextAttemptAt).toLocaleTimeString()})` : ''}</span>
+              <span>{STATUS_WORDS[o.status]}{o.status === 'queued' && o.nextAttemptAt ? ` (next try ${showMoment(o.nextAttemptAt)})` : ''}</span>
               {o.lastError && o.status !== 'sent' && <span class="muted">Last try: {o.lastError}</span>}
-              {o.sentAt && <span class="muted">Received {new Date(o.sentAt).toLocaleString()}</span>}
+              {o.sentAt && <span class="muted">Received {showMoment(o.sentAt)}</span>}
             </li>
           ))}
         </ul>
@@ -141,7 +147,7 @@ export function SendScreen() {
       {(log.data ?? []).length > 0 && (
         <details class="section">
           <summary>Export log ({(log.data ?? []).length})</summary>
-          <ul>{(log.data ?? []).slice(0, 50).map((l) => <li key={l.id}>{new Date(l.at).toLocaleString()} · {l.kind} · {l.fileName} · {l.sampleIds.length} samples · engine {l.engineVersion}</li>)}</ul>
+          <ul>{(log.data ?? []).slice(0, 50).map((l) => <li key={l.id}>{showMoment(l.at)} · {EXPORT_WORDS[l.kind] ?? l.kind} · {l.fileName} · {l.sampleIds.length} samples · engine {l.engineVersion}</li>)}</ul>
         </details>
       )}
     </section>

@@ -7,12 +7,21 @@ import { StateBadge } from '../components/State';
 import { useLive, useProfile, useSettings } from '../data';
 import { parseDecimal } from '../forms/parse';
 import { SiteImport } from '../day/SiteImport';
+import { Icon } from '../components/Icon';
+import { showAge, showDateTime } from '../format';
 
 interface Position {
   latitude: number;
   longitude: number;
   accuracyM: number;
+  /** when the fix was taken (ms since epoch, from the device) */
+  at: number;
 }
+
+/** A fix older than this is not taken: a new site must not get the previous site's coordinates. */
+const FIX_MAX_AGE_MS = 5_000;
+/** Above this the fix is shown with a warning (common practice for site positions from a phone). */
+const FIX_WARN_ACCURACY_M = 30;
 
 function usePosition(): { pos: Position | null; status: string; locate: () => void } {
   const [pos, setPos] = useState<Position | null>(null);
@@ -25,14 +34,30 @@ function usePosition(): { pos: Position | null; status: string; locate: () => vo
     setStatus('Finding your position… (works without signal, may take a minute)');
     navigator.geolocation.getCurrentPosition(
       (p) => {
-        setPos({ latitude: p.coords.latitude, longitude: p.coords.longitude, accuracyM: p.coords.accuracy });
+        setPos({ latitude: p.coords.latitude, longitude: p.coords.longitude, accuracyM: p.coords.accuracy, at: p.timestamp || Date.now() });
         setStatus('');
       },
-      (e) => setStatus(`No position: ${e.message}. Type the coordinates instead.`),
-      { enableHighAccuracy: true, timeout: 60_000, maximumAge: 30_000 },
+      (e) => setStatus(`No position (${e.code === 1 ? 'permission refused' : e.code === 3 ? 'no fix within a minute' : 'position unavailable'}). Type the coordinates instead.`),
+      { enableHighAccuracy: true, timeout: 60_000, maximumAge: FIX_MAX_AGE_MS },
     );
   };
   return { pos, status, locate };
+}
+
+/** The fix's accuracy and age, ticking, with a warning when it is too coarse for a site. */
+function FixInfo({ pos }: { pos: Position }) {
+  const [now, setNow] = useState(Date.now());
+  useEffect(() => {
+    const t = setInterval(() => setNow(Date.now()), 1000);
+    return () => clearInterval(t);
+  }, []);
+  const coarse = pos.accuracyM > FIX_WARN_ACCURACY_M;
+  return (
+    <p class={coarse ? 'notice warn fix-info' : 'hint fix-info'} role="status" data-testid="fix-info">
+      {coarse && <Icon name="warn" size={20} />} Fix ±{Math.round(pos.accuracyM)} m, taken {showAge(now - pos.at)}.
+      {coarse && ` Coarser than ${FIX_WARN_ACCURACY_M} m: wait in the open for a better fix, or type the position from a map.`}
+    </p>
+  );
 }
 
 /** Add a site from the sample form or the sites list, with the phone's position if wanted. */
@@ -77,8 +102,9 @@ export function SiteForm({ onCreated, compact }: { onCreated?: (id: string) => v
         <TextField id="site-name" label="Site name" value={name} onInput={setName} />
       </div>
       <Choice name="site-type" label="Site type" value={type} onChange={setType} options={[{ value: 'stream', label: 'Stream' }, { value: 'spring', label: 'Spring' }, { value: 'well', label: 'Well' }, { value: 'lake', label: 'Lake' }]} />
-      <button type="button" class="btn btn-small" onClick={locate}>Use my position</button>
+      <button type="button" class="btn btn-small" onClick={locate}><Icon name="locate" /> Use my position</button>
       {status && <p class="hint" role="status">{status}</p>}
+      {pos && !status && <FixInfo pos={pos} />}
       <div class="row3">
         <TextField id="site-lat" label="Latitude (WGS84)" numeric value={lat} onInput={setLat} error={la.ok ? undefined : la.error} />
         <TextField id="site-lon" label="Longitude (WGS84)" numeric value={lon} onInput={setLon} error={lo.ok ? undefined : lo.error} />
@@ -92,7 +118,7 @@ export function SiteForm({ onCreated, compact }: { onCreated?: (id: string) => v
 
 export function NewSiteInline({ onCreated }: { onCreated: (id: string) => void }) {
   const [open, setOpen] = useState(false);
-  if (!open) return <button type="button" class="btn btn-small" onClick={() => setOpen(true)}>+ New site here</button>;
+  if (!open) return <button type="button" class="btn btn-icon" title="New site here" onClick={() => setOpen(true)} aria-expanded="false"><Icon name="plus" /><span class="sr-only">New site here</span></button>;
   return <SiteForm compact onCreated={(id) => { setOpen(false); onCreated(id); }} />;
 }
 
@@ -147,7 +173,7 @@ export function SiteDetail({ siteId }: { siteId: string }) {
         si: r.d.analysis!.saturationIndex.calcite!,
         band: r.d.analysis!.calciteSiUncertainty ?? 0,
         logPco2: r.d.analysis!.logPco2 ?? null,
-      })), Math.min(el.clientWidth || 340, 720));
+      })), Math.min(el.clientWidth || 320, 720));
     }).catch((e) => setChartError(`Chart unavailable: ${e instanceof Error ? e.message : String(e)}`));
     return () => {
       cancelled = true;
@@ -161,22 +187,29 @@ export function SiteDetail({ siteId }: { siteId: string }) {
       <p class="lead">{s.code} · {s.name} ({s.type})</p>
       <p class="muted">{s.latitude !== undefined ? `${s.latitude.toFixed(5)}, ${s.longitude?.toFixed(5)} ${s.datum}` : 'No position recorded'}{s.notes ? ` · ${s.notes}` : ''}</p>
       <h2>Calcite SI and log pCO₂ over time</h2>
-      <div ref={chartRef} class="chart" aria-label="Chart of calcite saturation index and CO2 over time" />
+      <div ref={chartRef} class="chart" role="img" aria-label="Chart of calcite saturation index with its band, and log pCO₂, over time" />
+      <ul class="chart-legend" aria-label="Chart legend">
+        <li><svg width="28" height="14" aria-hidden="true"><line x1="2" x2="26" y1="7" y2="7" stroke="#0b3d4f" stroke-width="3" /><circle cx="14" cy="7" r="4" fill="#0b3d4f" /></svg>Calcite SI</li>
+        <li><svg width="28" height="14" aria-hidden="true"><rect x="2" y="2" width="24" height="10" fill="#1f7f9040" stroke="#1f7f90" /></svg>Uncertainty band</li>
+        <li><svg width="28" height="14" aria-hidden="true"><line x1="2" x2="26" y1="7" y2="7" stroke="#101a1f" stroke-width="2" stroke-dasharray="6 4" /></svg>SI = 0 (saturation)</li>
+        <li><svg width="28" height="14" aria-hidden="true"><line x1="2" x2="26" y1="7" y2="7" stroke="#7a4b00" stroke-width="2" stroke-dasharray="10 4" /><circle cx="14" cy="7" r="4" fill="#7a4b00" /></svg>log pCO₂ (lower panel)</li>
+      </ul>
       {chartError && <p class="field-error">{chartError}</p>}
-      <table class="table">
-        <caption>Samples at this site</caption>
-        <thead><tr><th scope="col">Time</th><th scope="col">State</th><th scope="col">SI</th><th scope="col">log pCO₂</th></tr></thead>
-        <tbody>
-          {rows.map(({ s: x, d }) => (
-            <tr key={x.id}>
-              <td><a href={`#/sample/${x.id}`}>{new Date(x.time).toLocaleString()}</a></td>
-              <td><StateBadge state={d.analysis?.calciteState ?? 'unknown'} /></td>
-              <td>{d.analysis?.saturationIndex.calcite?.toFixed(2) ?? '—'}</td>
-              <td>{d.analysis?.logPco2?.toFixed(2) ?? '—'}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <h2>Samples at this site</h2>
+      <ul class="cards row-cards" aria-label="Samples at this site">
+        {rows.map(({ s: x, d }) => (
+          <li key={x.id}>
+            <a class="card" href={`#/sample/${encodeURIComponent(x.id)}`}>
+              <span class="card-title">{showDateTime(x.time)}</span>
+              <StateBadge state={d.analysis?.calciteState ?? 'unknown'} />
+              <span class="keyvals">
+                <span>SI {d.analysis?.saturationIndex.calcite?.toFixed(2) ?? '—'}</span>
+                <span>log pCO₂ {d.analysis?.logPco2?.toFixed(2) ?? '—'}</span>
+              </span>
+            </a>
+          </li>
+        ))}
+      </ul>
     </section>
   );
 }

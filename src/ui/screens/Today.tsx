@@ -10,6 +10,9 @@ import { uncoveredParameters } from '../coverage';
 import type { Route } from '../router';
 import { go } from '../router';
 import { useMemo, useState } from 'preact/hooks';
+import { Icon } from '../components/Icon';
+import { showDayLong, showTime } from '../format';
+import { splitWarnings } from '../warning-kinds';
 
 function shiftDate(date: string, days: number): string {
   const d = new Date(`${date}T12:00:00`);
@@ -39,9 +42,9 @@ export function TodayScreen({ route }: { route: Route }) {
   return (
     <section>
       <div class="day-nav">
-        <a class="btn btn-small" href={`#/today?date=${shiftDate(date, -1)}`} aria-label="Previous day">‹</a>
-        <p class="lead day-label">{new Date(`${date}T12:00:00`).toLocaleDateString(undefined, { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' })}{isToday ? ' (today)' : ''}</p>
-        <a class="btn btn-small" href={`#/today?date=${shiftDate(date, 1)}`} aria-label="Next day">›</a>
+        <a class="btn btn-small" href={`#/today?date=${shiftDate(date, -1)}`} aria-label="Previous day"><Icon name="prev" /></a>
+        <p class="lead day-label">{showDayLong(date)}{isToday ? ' (today)' : ''}</p>
+        <a class="btn btn-small" href={`#/today?date=${shiftDate(date, 1)}`} aria-label="Next day"><Icon name="next" /></a>
       </div>
       {route.query.get('saved') && <p class="notice" role="status">Sample saved on this phone.</p>}
       {deleted && (
@@ -68,12 +71,12 @@ export function TodayScreen({ route }: { route: Route }) {
           {rows.map(({ s, d, uncovered }) => {
             const a = d.analysis;
             const site = siteById.get(s.siteId);
-            const nWarn = d.warnings.length + uncovered.length;
+            const nWarn = splitWarnings(d.warnings).action.length + uncovered.length;
             return (
               <li key={s.id}>
                 <a class="card sample-card" href={`#/sample/${encodeURIComponent(s.id)}`}>
                   <span class="card-title">
-                    {new Date(s.time).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })} · {site ? `${site.code} ${site.name}` : 'unknown site'}
+                    {showTime(s.time)} · {site ? `${site.code} ${site.name}` : 'unknown site'}
                     {s.qc.type !== 'environmental' && <span class="tag">{s.qc.type}</span>}
                     {s.demo && <span class="tag">demo</span>}
                   </span>
@@ -86,7 +89,7 @@ export function TodayScreen({ route }: { route: Route }) {
                     {a?.saturationIndex.calcite !== undefined && <span>SI {a.saturationIndex.calcite.toFixed(2)} ± {a.calciteSiUncertainty!.toFixed(2)}</span>}
                     {a?.logPco2 !== undefined && <span>log pCO₂ {a.logPco2.toFixed(2)}</span>}
                   </span>
-                  {uncovered.length > 0 && <span class="flag">⚠ Outside a passing {uncovered.map((u) => PARAM_WORDS[u.parameter]).join(' / ')} check</span>}
+                  {uncovered.length > 0 && <span class="flag"><Icon name="warn" size={18} /> Outside a passing {uncovered.map((u) => PARAM_WORDS[u.parameter]).join(' / ')} check</span>}
                   {nWarn > 0 && <span class="muted">{nWarn} thing{nWarn > 1 ? 's' : ''} to check</span>}
                 </a>
               </li>
