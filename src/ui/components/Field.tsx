@@ -171,21 +171,28 @@ export function TimeField(p: { id: string; label: string; iso: string; onChange:
   const local = m ? m[1]! : '';
   const offset = m ? m[3]! : isoWithOffset().slice(-6);
   return (
+    <Labelled id={p.id} label={p.label} error={p.error}>
+      <input
+        id={p.id}
+        type="datetime-local"
+        value={local}
+        aria-invalid={p.error ? true : undefined}
+        onChange={(e) => {
+          const v = (e.currentTarget as HTMLInputElement).value;
+          if (v) p.onChange(`${v.slice(0, 16)}:00${offset}`);
+        }}
+      />
+      <span class="unit">{showOffset(`x${offset}`)}</span>
+    </Labelled>
+  );
+}
+
+/** A label above an input row, with its error said below. */
+function Labelled(p: { id: string; label: string; error?: string | undefined; children: ComponentChildren }) {
+  return (
     <div class={p.error ? 'field has-error' : 'field'}>
       <label for={p.id}>{p.label}</label>
-      <div class="input-row">
-        <input
-          id={p.id}
-          type="datetime-local"
-          value={local}
-          aria-invalid={p.error ? true : undefined}
-          onChange={(e) => {
-            const v = (e.currentTarget as HTMLInputElement).value;
-            if (v) p.onChange(`${v.slice(0, 16)}:00${offset}`);
-          }}
-        />
-        <span class="unit">{showOffset(`x${offset}`)}</span>
-      </div>
+      <div class="input-row">{p.children}</div>
       {p.error && <p class="field-error" role="alert">{p.error}</p>}
     </div>
   );
