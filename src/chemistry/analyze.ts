@@ -255,7 +255,7 @@ function chooseIonicStrength(
   const site = opts.siteConductanceFactor;
   const factor = site?.factor ?? opts.conductanceFactor ?? DEFAULT_CONDUCTANCE_FACTOR;
   const factorRel = site ? site.relUncertainty : unc.conductanceFactorRel;
-  const factorSource: ConductanceFactorSource = site ? 'site' : opts.conductanceFactor !== undefined ? 'given' : 'generic';
+  const factorSource: ConductanceFactorSource = site ? 'site' : opts.conductanceFactor !== undefined && opts.conductanceFactor !== DEFAULT_CONDUCTANCE_FACTOR ? 'given' : 'generic';
   const sc = input.scUsPerCm ?? undefined;
   const need = (field: keyof SampleInput, what: string) => {
     if (input[field] === undefined || input[field] === null) {

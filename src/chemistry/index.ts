@@ -117,3 +117,4 @@ export {
   type Tolerance,
   type StabilizedParameter,
 } from './profiles';
+export { conductanceFactorFromAnalyses, SITE_FACTOR_MIN_ANALYSES } from './site-factor';

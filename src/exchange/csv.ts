@@ -3,8 +3,9 @@
 // that a spreadsheet would run as a formula.
 import Papa from 'papaparse';
 import { ENGINE_VERSION, median, type MethodProfile } from '../chemistry';
-import type { Derived } from '../records/derive';
+import type { DeriveSettings, Derived } from '../records/derive';
 import { derivedFor } from '../records/derived-cache';
+import { siteFactorsFrom } from '../records/site-factor';
 import type { CalibrationEvent, Sample, Settings, Site } from '../records/schema';
 
 export type Cell = string | number | boolean | null | undefined;
@@ -124,7 +125,7 @@ export const WIDE_COLUMNS: Col[] = [
   { h: 'alkalinity_method', get: ({ d, s }) => (s.field.alkalinity?.kind === 'titration' ? d.titration?.method : s.field.alkalinity ? 'entered' : undefined) },
   { h: 'ca_mg_L', get: ({ d }) => d.input.caMgL ?? undefined },
   { h: 'ionic_strength_mol_L', get: ({ d }) => d.analysis?.ionicStrength.value },
-  { h: 'ionic_strength_source', get: ({ d }) => d.analysis?.ionicStrength.source },
+  { h: 'ionic_strength_source', get: ({ d }) => ionicStrengthSource(d) },
   { h: 'activity_model', get: ({ d }) => d.analysis?.activityModel },
   { h: 'si_calcite', get: ({ d }) => d.analysis?.saturationIndex.calcite },
   { h: 'si_calcite_band_95pct', get: ({ d }) => d.analysis?.calciteSiUncertainty },
@@ -151,19 +152,28 @@ export const WIDE_COLUMNS: Col[] = [
 export interface ExportContext {
   samples: Sample[];
   sites: Site[];
-  settings: Pick<Settings, 'activityModel' | 'conductanceFactor'>;
+  /** engine settings; each site's own conductance factor is computed from `samples` unless given */
+  settings: DeriveSettings;
   profile?: MethodProfile;
   /** the readable code of a sample outside `samples` (a QC parent from another day) */
   codeOf?: (sampleId: string) => string | undefined;
 }
 
+/** The ionic-strength source as exported: a site's own conductance factor is named, with its analyses. */
+export function ionicStrengthSource(d: Derived): string | undefined {
+  const i = d.analysis?.ionicStrength;
+  if (!i) return undefined;
+  return i.source === 'conductance' && i.conductanceFactor?.source === 'site' ? `conductance-site-factor (${i.conductanceFactor.n} full analyses)` : i.source;
+}
+
 function derivedRows(ctx: ExportContext) {
   const siteById = new Map(ctx.sites.map((s) => [s.id, s]));
   const codeById = new Map(ctx.samples.map((s) => [s.id, s.sampleCode]));
+  const settings = { ...ctx.settings, siteFactors: ctx.settings.siteFactors ?? siteFactorsFrom(ctx.samples, ctx.settings) };
   return ctx.samples.map((s) => ({
     s,
     site: siteById.get(s.siteId),
-    d: derivedFor(s, ctx.settings, ctx.profile),
+    d: derivedFor(s, settings, ctx.profile),
     parentCode: s.qc.parentId ? codeById.get(s.qc.parentId) ?? ctx.codeOf?.(s.qc.parentId) : undefined,
   }));
 }
@@ -195,7 +205,7 @@ export function longCsv(ctx: ExportContext, opts: { bom?: boolean } = {}): strin
     for (const l of s.lab) add(l.parameter, l.value, l.unit, 'lab', l.method ?? '', l.qualifier ?? '');
     const a = d.analysis;
     if (a) {
-      add('ionic_strength', a.ionicStrength.value, 'mol/L', 'computed', `from ${a.ionicStrength.source}; engine ${ENGINE_VERSION}`);
+      add('ionic_strength', a.ionicStrength.value, 'mol/L', 'computed', `from ${ionicStrengthSource(d)}; engine ${ENGINE_VERSION}`);
       add('saturation_index_calcite', a.saturationIndex.calcite, '1', 'computed', `${a.activityModel}; band ±${a.calciteSiUncertainty?.toFixed(3) ?? ''} (95 %, k = 2)`);
       add('saturation_index_aragonite', a.saturationIndex.aragonite, '1', 'computed', a.activityModel);
       add('saturation_index_dolomite', a.saturationIndex.dolomite, '1', 'computed', a.activityModel);

@@ -3,13 +3,8 @@
 import { analyzeSample, dataChecks, DEFAULT_PROFILE, ENGINE_VERSION, InputError, PRESSURE_TO_KPA, specificConductance, type AnalyzeOptions, type SampleInput } from '../chemistry';
 import { parseCsv, toCsv, unsafeCell, type Cell } from './csv';
 import { parseDecimalLoose } from '../records/numbers';
+import { LAB_PARAMS } from '../records/site-factor';
 
-/** Lab parameter names (lower case, as labs commonly write them) → engine input field, mg/L. */
-const LAB_PARAMS: Record<string, keyof SampleInput> = {
-  calcium: 'caMgL', ca: 'caMgL', magnesium: 'mgMgL', mg: 'mgMgL', sodium: 'naMgL', na: 'naMgL', potassium: 'kMgL', k: 'kMgL',
-  chloride: 'clMgL', cl: 'clMgL', sulfate: 'so4MgL', so4: 'so4MgL', 'nitrate as n': 'no3NMgL', no3n: 'no3NMgL',
-  fluoride: 'fMgL', f: 'fMgL', silica: 'sio2MgL', sio2: 'sio2MgL', tds: 'tdsMgL', 'alkalinity as caco3': 'alkalinityMgLCaCO3',
-};
 
 const FIELD_COLUMNS: Array<[keyof SampleInput, string]> = [
   ['tempC', 'water_temp_degC'], ['pH', 'ph_field'], ['alkalinityMgLCaCO3', 'alkalinity_mg_L_CaCO3'], ['caMgL', 'ca_mg_L'],

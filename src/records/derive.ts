@@ -20,6 +20,7 @@ import {
   type MethodProfile,
   type SampleEvidence,
   type SampleInput,
+  type SiteConductanceFactor,
   type StabilizationResult,
   type TitrationResult,
 } from '../chemistry';
@@ -100,15 +101,22 @@ export function sampleEvidence(f: Sample['field'], stability: Derived['stability
   return ev;
 }
 
-export function analyzeOptions(settings: Pick<Settings, 'activityModel' | 'conductanceFactor'>): AnalyzeOptions {
-  return { activityModel: settings.activityModel, conductanceFactor: settings.conductanceFactor };
+/** Settings that shape a derivation: the engine choices, and each site's own conductance factor where it has one. */
+export type DeriveSettings = Pick<Settings, 'activityModel' | 'conductanceFactor'> & {
+  /** by site id: factors from the site's full analyses (records/site-factor.ts) */
+  siteFactors?: Readonly<Record<string, SiteConductanceFactor>> | undefined;
+};
+
+export function analyzeOptions(settings: DeriveSettings, siteId?: string): AnalyzeOptions {
+  const site = siteId !== undefined ? settings.siteFactors?.[siteId] : undefined;
+  return { activityModel: settings.activityModel, conductanceFactor: settings.conductanceFactor, ...(site ? { siteConductanceFactor: site } : {}) };
 }
 
 /**
  * Derive everything the crew and the office see from one sample's stored entries.
  * Never throws for bad entries: an engine InputError comes back as `error` with its field.
  */
-export function deriveSample(sample: Pick<Sample, 'field' | 'pressure' | 'lab'>, settings: Pick<Settings, 'activityModel' | 'conductanceFactor'>, profile: MethodProfile = DEFAULT_PROFILE): Derived {
+export function deriveSample(sample: Pick<Sample, 'field' | 'pressure' | 'lab'> & { siteId?: string }, settings: DeriveSettings, profile: MethodProfile = DEFAULT_PROFILE): Derived {
   const f = sample.field;
   const stability: Derived['stability'] = {};
   const warnings: ChemWarning[] = [];
@@ -185,7 +193,7 @@ export function deriveSample(sample: Pick<Sample, 'field' | 'pressure' | 'lab'>,
       out.nh3 = { fraction: n.fraction, nh3NMgL: n.nh3NMgL };
     }
 
-    out.analysis = analyzeSample(input, { ...analyzeOptions(settings), evidence: sampleEvidence(f, stability, input) });
+    out.analysis = analyzeSample(input, { ...analyzeOptions(settings, sample.siteId), evidence: sampleEvidence(f, stability, input) });
     if (out.analysis.oxygen) {
       out.doMgL = out.analysis.oxygen.doMgL;
       out.doPercent = out.analysis.oxygen.percentSaturation;

@@ -4,18 +4,18 @@
 //
 // Key of one result: sample id + revision + updatedAt (every saved edit bumps both; a restore or merge
 // writes a new updatedAt), and a context key: engine version, the activity model and conductance factor
-// from Settings, and the profile's id, version and a fingerprint of its content (so a profile edited
+// from Settings plus the sites' own conductance factors, and the profile's id, version and a fingerprint of its content (so a profile edited
 // without a new version still invalidates). When the context changes, results of older contexts are
 // dropped. The cache holds at most `maxEntries` results (least recently used go first): one result is
 // a few kB, so the default keeps memory bounded on a phone.
 //
 // Results are shared: callers must treat a returned `Derived` as read-only.
 import { ENGINE_VERSION, type MethodProfile, DEFAULT_PROFILE } from '../chemistry';
-import { deriveSample, type Derived } from './derive';
-import type { Sample, Settings } from './schema';
+import { deriveSample, type DeriveSettings, type Derived } from './derive';
+import type { Sample } from './schema';
 
-export type DeriveSettings = Pick<Settings, 'activityModel' | 'conductanceFactor'>;
-type DerivableSample = Pick<Sample, 'id' | 'revision' | 'updatedAt' | 'field' | 'pressure' | 'lab'>;
+export type { DeriveSettings };
+type DerivableSample = Pick<Sample, 'id' | 'revision' | 'updatedAt' | 'field' | 'pressure' | 'lab'> & { siteId?: string };
 
 export interface DeriveContext {
   settings: DeriveSettings;
@@ -47,7 +47,8 @@ function profileKey(p: MethodProfile): string {
 /** The part of the key shared by every sample derived under the same engine, settings and profile. */
 export function contextKey(ctx: DeriveContext): string {
   const s = ctx.settings;
-  return `${ctx.engineVersion ?? ENGINE_VERSION}|${s.activityModel}|${s.conductanceFactor ?? ''}|${profileKey(ctx.profile ?? DEFAULT_PROFILE)}`;
+  const sites = s.siteFactors ? fnv1a(JSON.stringify(s.siteFactors)) : '';
+  return `${ctx.engineVersion ?? ENGINE_VERSION}|${s.activityModel}|${s.conductanceFactor ?? ''}|${sites}|${profileKey(ctx.profile ?? DEFAULT_PROFILE)}`;
 }
 
 export const sampleKey = (s: Pick<Sample, 'id' | 'revision' | 'updatedAt'>) => `${s.id}|${s.revision}|${s.updatedAt}`;

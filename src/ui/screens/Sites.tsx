@@ -1,5 +1,6 @@
-import { useEffect, useRef, useState } from 'preact/hooks';
+import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { derivedFor } from '../../records/derived-cache';
+import { siteFactorsFrom } from '../../records/site-factor';
 import type { Site } from '../../records/schema';
 import { getSite, listSamplesForSite, listSites, saveSite, toStoreError } from '../../store/records';
 import { Choice, TextField } from '../components/Field';
@@ -156,7 +157,10 @@ export function SiteDetail({ siteId }: { siteId: string }) {
   const profile = useProfile();
   const site = useLive(() => getSite(siteId), [siteId], ['sites']);
   const samples = useLive(() => listSamplesForSite(siteId), [siteId], ['samples']);
-  const rows = (samples.data ?? []).map((s) => ({ s, d: derivedFor(s, settings, profile) }));
+  // the site's own SC → I factor once it has three full analyses (issue 12); the generic one before
+  const siteFactor = useMemo(() => siteFactorsFrom(samples.data ?? [], settings)[siteId], [samples.data, settings, siteId]);
+  const siteSettings = useMemo(() => (siteFactor ? { ...settings, siteFactors: { [siteId]: siteFactor } } : settings), [settings, siteFactor, siteId]);
+  const rows = (samples.data ?? []).map((s) => ({ s, d: derivedFor(s, siteSettings, profile) }));
   const chartRef = useRef<HTMLDivElement>(null);
   const [chartError, setChartError] = useState('');
   useEffect(() => {
@@ -179,13 +183,18 @@ export function SiteDetail({ siteId }: { siteId: string }) {
       cancelled = true;
       plot?.destroy();
     };
-  }, [samples.data, settings]);
+  }, [samples.data, siteSettings]);
   if (!site.data) return <p class="muted">{site.error || 'Opening…'}</p>;
   const s = site.data;
   return (
     <section>
       <p class="lead">{s.code} · {s.name} ({s.type})</p>
       <p class="muted">{s.latitude !== undefined ? `${s.latitude.toFixed(5)}, ${s.longitude?.toFixed(5)} ${s.datum}` : 'No position recorded'}{s.notes ? ` · ${s.notes}` : ''}</p>
+      <p class="muted" data-testid="site-factor">
+        {siteFactor
+          ? `Own conductance factor: ${(siteFactor.factor * 1e5).toFixed(2)}×10⁻⁵ mol/L per µS/cm (±${Math.round(200 * siteFactor.relUncertainty)} %, 95 %), from ${siteFactor.n} full analyses: used for this site's ionic strength.`
+          : `Generic conductance factor in use; three full analyses (field or lab major ions) give this site its own.`}
+      </p>
       <h2>Calcite SI and log pCO₂ over time</h2>
       <div ref={chartRef} class="chart" role="img" aria-label="Chart of calcite saturation index with its band, and log pCO₂, over time" />
       <ul class="chart-legend" aria-label="Chart legend">
