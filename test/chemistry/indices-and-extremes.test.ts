@@ -119,3 +119,20 @@ describe('no NaN at the extremes the engine accepts', () => {
     );
   }, 120_000);
 });
+
+describe('warned beyond the chosen model’s range', () => {
+  it('sulfate-rich water above I = 0.5 is warned under Truesdell–Jones; NaCl water at the same I is not', () => {
+    // Na2SO4-type water, I ≈ 0.8 (values of our choosing)
+    const sulfate = analyzeSample({ tempC: 20, pH: 7.8, alkalinityMgLCaCO3: 200, caMgL: 400, mgMgL: 1500, naMgL: 12000, kMgL: 50, clMgL: 1000, so4MgL: 30000 });
+    expect(sulfate.ionicStrength.value!).toBeGreaterThan(0.5);
+    expect(sulfate.warnings.find((w) => w.code === 'activity-model-out-of-range')?.message).toMatch(/sulfate-rich/);
+    const nacl = analyzeSample({ tempC: 20, pH: 7.8, alkalinityMgLCaCO3: 200, caMgL: 400, mgMgL: 300, naMgL: 14000, kMgL: 50, clMgL: 22000, so4MgL: 500 });
+    expect(nacl.ionicStrength.value!).toBeGreaterThan(0.5);
+    expect(nacl.ionicStrength.value!).toBeLessThan(2);
+    expect(nacl.warnings.map((w) => w.code)).not.toContain('activity-model-out-of-range');
+  });
+  it('a chosen model used beyond its range is warned (Davies at I ≈ 0.7)', () => {
+    const a = analyzeSample({ tempC: 25, pH: 8.1, scUsPerCm: 53087, alkalinityMgLCaCO3: 117, caMgL: 412 }, { activityModel: 'davies' });
+    expect(a.warnings.map((w) => w.code)).toContain('activity-model-out-of-range');
+  });
+});
