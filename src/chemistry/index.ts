@@ -65,6 +65,7 @@ export {
   type EvidenceUncertainties,
 } from './uncertainty';
 export { ENGINE_VERSION, ATMOSPHERIC_LOG_PCO2 } from './version';
+export { replicateVerdict, blankVerdict, type QcValues, type QcCheck, type QcVerdict } from './qc';
 export {
   oxygenSaturationMgL,
   oxygenPercentSaturation,
@@ -116,5 +117,9 @@ export {
   type ProfileRef,
   type Tolerance,
   type StabilizedParameter,
+  DEFAULT_QC_LIMITS,
+  type QcLimits,
+  type QcParameter,
+  type ReplicateLimit,
 } from './profiles';
 export { conductanceFactorFromAnalyses, SITE_FACTOR_MIN_ANALYSES } from './site-factor';

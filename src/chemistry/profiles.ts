@@ -19,6 +19,44 @@ export interface Tolerance {
 
 export type StabilizedParameter = 'temperature' | 'pH' | 'sc' | 'do' | 'turbidity';
 
+/** Parameters a field QC sample (replicate or blank) is judged on. */
+export type QcParameter = 'temperature' | 'pH' | 'sc' | 'do' | 'alkalinity' | 'calcium';
+
+/**
+ * A replicate agrees with its parent when the relative percent difference is within `maxRpdPercent`
+ * OR the plain difference is within `maxAbsDiff` (near zero an RPD says little); pH and temperature,
+ * not ratio quantities, use the plain difference only.
+ */
+export interface ReplicateLimit {
+  maxRpdPercent?: number;
+  /** in the parameter's unit: °C, pH, µS/cm, mg/L, mg/L as CaCO₃ */
+  maxAbsDiff?: number;
+}
+
+/** Field QC acceptance: replicate agreement per parameter, and what a blank may show. */
+export interface QcLimits {
+  replicate: Record<QcParameter, ReplicateLimit>;
+  /** a field blank (deionized water through the same bottles and meters) passes at or below these */
+  blank: { scUsPerCm: number; alkalinityMgLCaCO3: number; caMgL: number };
+}
+
+/**
+ * Default QC limits (common practice, our choice; keep editable): field replicates within 5 % RPD for
+ * SC, 10 % for DO and alkalinity, 20 % for kit calcium (coarse steps), pH within 0.2 and temperature
+ * within 0.5 °C; a blank at most 5 µS/cm SC, 5 mg/L alkalinity as CaCO₃ and 1 mg/L calcium.
+ */
+export const DEFAULT_QC_LIMITS: QcLimits = {
+  replicate: {
+    temperature: { maxAbsDiff: 0.5 },
+    pH: { maxAbsDiff: 0.2 },
+    sc: { maxRpdPercent: 5, maxAbsDiff: 5 },
+    do: { maxRpdPercent: 10, maxAbsDiff: 0.3 },
+    alkalinity: { maxRpdPercent: 10, maxAbsDiff: 5 },
+    calcium: { maxRpdPercent: 20, maxAbsDiff: 2 },
+  },
+  blank: { scUsPerCm: 5, alkalinityMgLCaCO3: 5, caMgL: 1 },
+};
+
 export interface MethodProfile {
   id: string;
   version: number;
@@ -54,6 +92,8 @@ export interface MethodProfile {
   tdsToSc: { min: number; max: number };
   /** a sample must lie within this many hours of a passing check of each meter */
   calibrationWindowHours: number;
+  /** replicate and blank acceptance; profiles stored before it existed use {@link DEFAULT_QC_LIMITS} */
+  qc?: QcLimits;
   ranges: {
     tempC: [number, number];
     pH: [number, number];
@@ -90,6 +130,7 @@ export const DEFAULT_PROFILE: MethodProfile = {
   tdsMeasuredToCalculated: { min: 1.0, max: 1.2 },
   tdsToSc: { min: 0.55, max: 0.7 },
   calibrationWindowHours: 24,
+  qc: DEFAULT_QC_LIMITS,
   ranges: {
     tempC: [-0.5, 40],
     pH: [5, 9.5],

@@ -2,7 +2,8 @@
 // input with its unit in the header, computed indicators with the engine version, and no cell
 // that a spreadsheet would run as a formula.
 import Papa from 'papaparse';
-import { ENGINE_VERSION, median, type MethodProfile } from '../chemistry';
+import { DEFAULT_PROFILE, ENGINE_VERSION, median, type MethodProfile, type QcVerdict } from '../chemistry';
+import { qcVerdictFor } from '../records/qc';
 import type { DeriveSettings, Derived } from '../records/derive';
 import { derivedFor } from '../records/derived-cache';
 import { siteFactorsFrom } from '../records/site-factor';
@@ -45,10 +46,19 @@ export function parseCsv(text: string): { header: string[]; rows: Array<Record<s
   };
 }
 
+/** One sample with what its columns read: its site, its derived results, its QC verdict. */
+interface Row {
+  s: Sample;
+  site?: Site | undefined;
+  d: Derived;
+  parentCode?: string | undefined;
+  qc?: QcVerdict | undefined;
+}
+
 /** A column of the wide file: header (with unit) and how to read it from a sample. */
 interface Col {
   h: string;
-  get: (x: { s: Sample; site?: Site | undefined; d: Derived; parentCode?: string | undefined }) => Cell;
+  get: (x: Row) => Cell;
 }
 
 /**
@@ -80,7 +90,10 @@ export const WIDE_COLUMNS: Col[] = [
   { h: 'weather', get: ({ s }) => s.weather },
   { h: 'qc_type', get: ({ s }) => s.qc.type },
   { h: 'qc_parent_id', get: ({ s }) => s.qc.parentId },
-  { h: 'qc_parent_code', get: ({ s, parentCode }) => parentCode },
+  { h: 'qc_parent_code', get: ({ parentCode }) => parentCode },
+  { h: 'qc_verdict', get: ({ s, qc }) => (s.qc.type === 'environmental' ? undefined : qc?.pass === undefined ? 'not judged' : qc.pass ? 'pass' : 'fail') },
+  { h: 'qc_detail', get: ({ s, qc }) => (s.qc.type === 'environmental' ? undefined : qc ? qc.checks.map((c) => `${c.pass ? 'ok' : 'FAIL'} ${c.message}`).join(' | ') || undefined : 'no parent sample') },
+  { h: 'qc_profile', get: ({ qc }) => (qc ? `${qc.profile.profileId} v${qc.profile.profileVersion}` : undefined) },
   // raw inputs, as entered
   { h: 'water_temp_degC', get: ({ s, d }) => reported(d, 'temperature', s.field.tempC?.values) },
   { h: 'water_temp_readings_n', get: ({ s }) => s.field.tempC?.values.length },
@@ -166,16 +179,18 @@ export function ionicStrengthSource(d: Derived): string | undefined {
   return i.source === 'conductance' && i.conductanceFactor?.source === 'site' ? `conductance-site-factor (${i.conductanceFactor.n} full analyses)` : i.source;
 }
 
-function derivedRows(ctx: ExportContext) {
+function derivedRows(ctx: ExportContext): Row[] {
   const siteById = new Map(ctx.sites.map((s) => [s.id, s]));
-  const codeById = new Map(ctx.samples.map((s) => [s.id, s.sampleCode]));
   const settings = { ...ctx.settings, siteFactors: ctx.settings.siteFactors ?? siteFactorsFrom(ctx.samples, ctx.settings) };
-  return ctx.samples.map((s) => ({
-    s,
-    site: siteById.get(s.siteId),
-    d: derivedFor(s, settings, ctx.profile),
-    parentCode: s.qc.parentId ? codeById.get(s.qc.parentId) ?? ctx.codeOf?.(s.qc.parentId) : undefined,
-  }));
+  const rows: Row[] = ctx.samples.map((s) => ({ s, site: siteById.get(s.siteId), d: derivedFor(s, settings, ctx.profile) }));
+  const byId = new Map(rows.map((r) => [r.s.id, r]));
+  const profile = ctx.profile ?? DEFAULT_PROFILE;
+  for (const r of rows) {
+    const parent = r.s.qc.parentId ? byId.get(r.s.qc.parentId) : undefined;
+    if (r.s.qc.parentId) r.parentCode = parent?.s.sampleCode ?? ctx.codeOf?.(r.s.qc.parentId);
+    r.qc = qcVerdictFor(r.s, r.d, parent ? { derived: parent.d } : undefined, profile);
+  }
+  return rows;
 }
 
 /** One row per sample. */

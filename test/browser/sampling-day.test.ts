@@ -113,3 +113,45 @@ describe('sites from the office and from another phone', () => {
     await b.context.close();
   });
 });
+
+describe('QC that judges itself at the bank', () => {
+  it('gives a replicate its verdict against the parent picked from the day, and judges a blank by the blank limits', async () => {
+    const { context, page } = await offlinePhone();
+    await tap(page.getByRole('button', { name: 'Load demo creek' }));
+    await page.waitForFunction(() => document.querySelectorAll('.sample-card').length === 3);
+    await page.goto(served.url + '#/new');
+    await page.getByLabel('Site', { exact: true }).selectOption({ label: 'WF-01 · Wrenfold Creek at the upper footbridge' });
+    await tap(page.getByText('Replicate', { exact: true }));
+    // the parent is picked from the day's environmental samples, by time, site and sample ID
+    const options = await page.locator('#parent option').allTextContents();
+    expect(options.slice(1).map((o) => o.replace(/^\d\d:\d\d · /, ''))).toEqual(expect.arrayContaining([expect.stringMatching(/^WF-01 · WF-01-\d{8}-0920$/)]));
+    await page.locator('#parent').selectOption({ label: options.find((o) => o.includes('WF-01 ·'))! });
+    await page.getByLabel('Water temperature').fill('7.0');
+    await page.getByLabel('Specific conductance').fill('405');
+    await page.getByLabel('pH').fill('8.08');
+    await page.getByLabel('Alkalinity', { exact: true }).fill('140');
+    const verdict = page.getByTestId('qc-verdict');
+    await verdict.getByText('✗ Replicate fails').waitFor();
+    const lines = await verdict.locator('li').allTextContents();
+    // demo parent (WF-01 today 09:20): medians 7.0 °C, SC 398, pH 8.01; alkalinity 165 mg/L as CaCO₃
+    expect(lines).toEqual([
+      '✓ Temperature 7.00 vs 7.00: difference 0.00 °C, allowed 0.5 °C.',
+      '✓ pH 8.08 vs 8.01: difference 0.07, allowed 0.2.',
+      '✓ SC 405 vs 398: RPD 1.7 % (difference 7.00 µS/cm), allowed 5 % or 5 µS/cm.', // 100·7/401.5
+      '✗ Alkalinity 140 vs 165: RPD 16.4 % (difference 25.0 mg/L CaCO₃), allowed 10 % or 5 mg/L CaCO₃.', // 100·25/152.5
+    ]);
+    await verdict.evaluate((el) => el.scrollIntoView({ block: 'center' }));
+    await noOverflow(page);
+    expect(await seriousAxe(page)).toEqual([]);
+    await shot(page, 'day-qc-replicate-verdict-360');
+
+    await tap(page.getByText('Blank', { exact: true }));
+    await page.getByLabel('Specific conductance').fill('1.8');
+    await page.getByLabel('Alkalinity', { exact: true }).fill('');
+    await verdict.getByText('✓ Blank passes').waitFor();
+    expect(await verdict.locator('li').allTextContents()).toEqual(['✓ SC 1.80 µS/cm in the blank, allowed up to 5 µS/cm.']);
+    await verdict.evaluate((el) => el.scrollIntoView({ block: 'center' }));
+    await shot(page, 'day-qc-blank-verdict-360');
+    await context.close();
+  });
+});

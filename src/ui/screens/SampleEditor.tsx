@@ -24,6 +24,7 @@ import { RepeatedReadings } from '../components/Readings';
 import { ResultsPanel } from '../components/Results';
 import { StateBadge } from '../components/State';
 import { SampleCode } from '../components/SampleCode';
+import { ParentPicker, QcLiveVerdict } from '../day/QcSection';
 import { TitrationPlot } from '../components/TitrationPlot';
 import { useLive, useProfile, useSettings } from '../data';
 import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm, type TimedRaw } from '../forms/sample-form';
@@ -231,9 +232,7 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
               <TimeField id="time" label="Sampling time" iso={form.time} error={e.time} onChange={(v) => update({ time: v })} />
               <TextField id="crew" label="Crew (comma-separated)" value={form.crew} onInput={(v) => update({ crew: v })} />
               <Choice name="qc" label="Sample type" value={form.qcType} onChange={(v) => update({ qcType: v })} options={[{ value: 'environmental', label: 'Environmental' }, { value: 'replicate', label: 'Replicate' }, { value: 'blank', label: 'Blank' }]} />
-              {form.qcType !== 'environmental' && (
-                <TextField id="parent" label="Parent sample ID" value={form.parentId} onInput={(v) => update({ parentId: v })} hint="The environmental sample this one checks." />
-              )}
+              <ParentPicker qcType={form.qcType} parentId={form.parentId} time={form.time} selfId={sampleId} onParent={(v) => update({ parentId: v })} />
             </Fold>
 
             <CoreField id="temp-0" label="Water temperature" unit="°C" value={form.temp[0]!.v} error={e['temp.0']} next="cond-0" status={stab(st.temperature)} onInput={(v) => update({ temp: setFirst(form.temp, v) })} />
@@ -287,6 +286,7 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
             />
           </div>
 
+          <QcLiveVerdict qcType={form.qcType} parentId={form.parentId} derived={derived} />
           <SaveBlock
             derived={derived}
             action={warn.action}
