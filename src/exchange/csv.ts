@@ -47,7 +47,7 @@ export function parseCsv(text: string): { header: string[]; rows: Array<Record<s
 }
 
 /** One sample with what its columns read: its site, its derived results, its QC verdict. */
-interface Row {
+export interface Row {
   s: Sample;
   site?: Site | undefined;
   d: Derived;
@@ -179,7 +179,8 @@ export function ionicStrengthSource(d: Derived): string | undefined {
   return i.source === 'conductance' && i.conductanceFactor?.source === 'site' ? `conductance-site-factor (${i.conductanceFactor.n} full analyses)` : i.source;
 }
 
-function derivedRows(ctx: ExportContext): Row[] {
+/** Each sample with its site, derived results, parent code and QC verdict: what the columns read. */
+export function derivedRows(ctx: ExportContext): Row[] {
   const siteById = new Map(ctx.sites.map((s) => [s.id, s]));
   const settings = { ...ctx.settings, siteFactors: ctx.settings.siteFactors ?? siteFactorsFrom(ctx.samples, ctx.settings) };
   const rows: Row[] = ctx.samples.map((s) => ({ s, site: siteById.get(s.siteId), d: derivedFor(s, settings, ctx.profile) }));

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { demoRecords, DEMO_SITES } from '../../src/demo/scenario';
 import { Sample, Site, CalibrationEvent, DEFAULT_SETTINGS } from '../../src/records/schema';
-import { calibrationsCsv, longCsv, parseCsv, safeCell, titrationsCsv, toCsv, unsafeCell, WIDE_COLUMNS, wideCsv } from '../../src/exchange/csv';
+import { calibrationsCsv, derivedRows, longCsv, parseCsv, safeCell, titrationsCsv, toCsv, unsafeCell, WIDE_COLUMNS, wideCsv } from '../../src/exchange/csv';
 import { samplesGeoJson, sitesGeoJson } from '../../src/exchange/geojson';
 import { deriveSample } from '../../src/records/derive';
 import { ENGINE_VERSION } from '../../src/chemistry';
@@ -23,10 +23,12 @@ describe('wide CSV (one row per sample)', () => {
     expect(header).toEqual(WIDE_COLUMNS.map((c) => c.h));
     expect(rows).toHaveLength(samples.length);
     const siteById = new Map(sites.map((s) => [s.id, s]));
+    const exported = derivedRows(ctx);
     samples.forEach((s, i) => {
       const d = deriveSample(s, DEFAULT_SETTINGS);
+      expect(exported[i]!.d.analysis?.saturationIndex.calcite).toBe(d.analysis?.saturationIndex.calcite);
       for (const col of WIDE_COLUMNS) {
-        const v = col.get({ s, site: siteById.get(s.siteId), d });
+        const v = col.get({ ...exported[i]!, s, site: siteById.get(s.siteId), d });
         const cell = rows[i]![col.h]!;
         if (v === undefined || v === null) expect(cell, col.h).toBe('');
         else if (typeof v === 'number') expect(Number(cell), col.h).toBe(v);
