@@ -82,6 +82,15 @@ row('engine', 'analyzeSample (full major ions), median', quantile(ft, 0.5), 'ms'
   row('bundle', 'total precache (uncompressed)', precacheKb, 'kB', '', null);
 }
 
+// --- office command: memory flat in the number of rows (streams; a million rows ≤ 300 MB) ---
+if (!process.argv.includes('--no-office')) {
+  const { recomputeBench } = await import('./recompute-bench.mjs');
+  const n = Number(process.env.BENCH_OFFICE_ROWS ?? 1_000_000);
+  const r = await recomputeBench(n);
+  row('office', `recompute ${n.toLocaleString('en')} rows: peak memory (maxRSS)`, r.maxRssMb, 'MB', '≤ 300 MB', r.maxRssMb <= 300);
+  row('office', `recompute ${n.toLocaleString('en')} rows: rows per second`, r.rows / r.seconds, '/s', '', null);
+}
+
 // --- store: real Chromium, real IndexedDB, at 1,000 / 10,000 / 50,000 samples ---
 if (!process.argv.includes('--engine-only')) {
   const { createServer } = await import('vite');

@@ -1,22 +1,75 @@
-// Office check: `npm run recompute -- day.csv [--lab lab.csv] > checked.csv`
-// Re-runs every indicator and data check on a Bankside samples CSV with the engine in src/chemistry.
-import { readFileSync } from 'node:fs';
+// The office command: re-runs every indicator and data check on a Bankside samples CSV with the
+// engine in src/chemistry, streaming (memory flat in the number of rows).
+//   npm run -s recompute -- day.csv --out checked.csv
+//   npm run -s recompute -- day.csv --lab lab.csv --format values --out values.csv
+// Paths are relative to the folder the command was typed in. Without --out the CSV goes to
+// standard output (use npm's -s so npm prints nothing of its own there).
+import { createReadStream, createWriteStream, readFileSync, renameSync, rmSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { once } from 'node:events';
 import { runnerImport } from 'vite';
 
-const args = process.argv.slice(2);
-const labAt = args.indexOf('--lab');
-const labFile = labAt >= 0 ? args[labAt + 1] : undefined;
-const input = args.find((a, i) => a !== '--lab' && (labAt < 0 || i !== labAt + 1));
-if (!input) {
-  console.error('usage: npm run recompute -- samples.csv [--lab lab.csv] > checked.csv');
-  process.exit(2);
+const USAGE = 'usage: npm run -s recompute -- samples.csv [--lab lab.csv] [--format samples|values] [--out FILE] [--encoding windows-1252]';
+const FORMATS = ['samples', 'values'];
+
+function parseArgs(argv) {
+  const opts = { format: 'samples' };
+  const positional = [];
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    const value = () => {
+      const v = argv[++i];
+      if (v === undefined || v.startsWith('--')) throw new Error(`${a} needs a value\n${USAGE}`);
+      return v;
+    };
+    if (a === '--lab') opts.lab = value();
+    else if (a === '--out') opts.out = value();
+    else if (a === '--format') opts.format = value();
+    else if (a === '--encoding') opts.encoding = value();
+    else if (a === '--help' || a === '-h') throw new Error(USAGE);
+    else if (a.startsWith('--')) throw new Error(`unknown option ${a}\n${USAGE}`);
+    else positional.push(a);
+  }
+  if (positional.length !== 1) throw new Error(USAGE);
+  if (!FORMATS.includes(opts.format)) throw new Error(`--format must be one of ${FORMATS.join(', ')} (got ${opts.format})`);
+  return { ...opts, input: positional[0] };
 }
+
+const here = process.env.INIT_CWD || process.cwd();
+let partial = null;
 try {
-  const { module } = await runnerImport('./src/exchange/recompute.ts');
-  const text = readFileSync(input, 'utf8');
-  const lab = labFile ? readFileSync(labFile, 'utf8') : undefined;
-  process.stdout.write(module.recomputeCsv(text, lab));
+  const opts = parseArgs(process.argv.slice(2));
+  const { module: rc } = await runnerImport(resolve(import.meta.dirname, '../src/exchange/recompute.ts'));
+  const inputPath = opts.input === '-' ? null : resolve(here, opts.input);
+  const outPath = opts.out ? resolve(here, opts.out) : null;
+  if (outPath && outPath === inputPath) throw new Error('--out would overwrite the input file: choose another name');
+  let labIndex = new Map();
+  if (opts.lab) {
+    const labPath = resolve(here, opts.lab);
+    let labText = '';
+    for await (const t of rc.decodeText(createReadStream(labPath), opts.lab, opts.encoding)) labText += t;
+    labIndex = rc.readLabIndex(labText, opts.lab);
+  }
+  // written beside the target and renamed at the end: a failed run never leaves a half file
+  partial = outPath ? `${outPath}.partial` : null;
+  const out = partial ? createWriteStream(partial) : process.stdout;
+  const write = async (text) => {
+    if (!out.write(text)) await once(out, 'drain');
+  };
+  const bytes = inputPath ? createReadStream(inputPath) : process.stdin;
+  const { rows, unmatchedLab } = await rc.recomputeStream(rc.decodeText(bytes, opts.input, opts.encoding), write, labIndex, { format: opts.format });
+  if (partial) {
+    out.end();
+    await once(out, 'finish');
+    renameSync(partial, outPath);
+    partial = null;
+    console.error(`recompute: ${rows} samples → ${opts.out} (${opts.format})`);
+  }
+  if (unmatchedLab.length > 0) {
+    console.error(`recompute: lab results for ${unmatchedLab.length} sample(s) not in ${opts.input} were not used: ${unmatchedLab.slice(0, 20).join(', ')}`);
+  }
 } catch (e) {
+  if (partial) rmSync(partial, { force: true });
   console.error(`recompute: ${e instanceof Error ? e.message : String(e)}`);
-  process.exit(1);
+  process.exitCode = 1;
 }

@@ -32,7 +32,7 @@ export function unsafeCell(s: string): string {
 }
 
 export function toCsv(header: string[], rows: Cell[][], opts: { bom?: boolean } = {}): string {
-  const body = Papa.unparse({ fields: header, data: rows.map((r) => r.map(safeCell)) }, { newline: '\r\n', quotes: false, escapeFormulae: false });
+  const body = Papa.unparse({ fields: header.map(safeCell), data: rows.map((r) => r.map(safeCell)) }, { newline: '\r\n', quotes: false, escapeFormulae: false });
   return (opts.bom ? '\uFEFF' : '') + body + '\r\n';
 }
 
@@ -218,7 +218,11 @@ export function longCsv(ctx: ExportContext, opts: { bom?: boolean } = {}): strin
     add('alkalinity_as_CaCO3', d.input.alkalinityMgLCaCO3 ?? undefined, 'mg/L', s.field.alkalinity?.kind === 'titration' ? 'computed' : 'field', s.field.alkalinity?.kind === 'titration' ? `titration, ${d.titration?.method}` : 'entered', q);
     add('calcium', d.input.caMgL ?? undefined, 'mg/L', 'field', 'kit', q);
     for (const [k, v] of Object.entries(s.field.ions)) add(k.replace(/MgL$/, ''), v, 'mg/L', 'field', 'field kit or meter', q);
-    for (const l of s.lab) add(l.parameter, l.value, l.unit, 'lab', l.method ?? '', l.qualifier ?? '');
+    for (const l of s.lab) {
+      // a censored result keeps its row: the detection limit as the value, marked not detected
+      if (l.censored) out.push([s.id, site?.code, s.time, l.parameter, l.detectionLimit, l.unitUcum ?? l.unit, 'lab', l.method ?? '', ['not detected', l.qualifier].filter(Boolean).join('; ')]);
+      else add(l.parameter, l.value, l.unitUcum ?? l.unit, 'lab', l.method ?? '', l.qualifier ?? '');
+    }
     const a = d.analysis;
     if (a) {
       add('ionic_strength', a.ionicStrength.value, 'mol/L', 'computed', `from ${ionicStrengthSource(d)}; engine ${ENGINE_VERSION}`);

@@ -25,6 +25,7 @@ import {
   type TitrationResult,
 } from '../chemistry';
 import type { KitResult, Sample, Settings, TimedValue } from './schema';
+import { labEngineInputs, type EngineField } from './lab-units';
 
 const msOf = (iso: string) => Date.parse(iso);
 const READING_WORDS: Record<string, string> = { temperature: 'Water temperature', pH: 'pH', sc: 'Conductance', do: 'Dissolved oxygen' };
@@ -80,6 +81,8 @@ export interface Derived {
   checks: DataCheck[];
   warnings: ChemWarning[];
   engineVersion: string;
+  /** engine inputs taken from lab results (the field did not measure them) */
+  labInputs?: EngineField[];
 }
 
 /**
@@ -172,6 +175,14 @@ export function deriveSample(sample: Pick<Sample, 'field' | 'pressure' | 'lab'> 
     for (const key of ['naMgL', 'kMgL', 'clMgL', 'so4MgL', 'no3NMgL', 'fMgL', 'sio2MgL', 'tdsMgL'] as const) {
       const v = ions[key];
       if (v !== undefined) input[key] = v;
+    }
+    // lab results fill what the field did not measure (ionic strength from the composition, charge
+    // balance); a field value is never replaced
+    for (const [key, v] of Object.entries(labEngineInputs(sample.lab ?? [])) as Array<[EngineField, number]>) {
+      if (input[key] === undefined) {
+        input[key] = v;
+        (out.labInputs ??= []).push(key);
+      }
     }
     out.input = input;
     if (!Number.isFinite(input.tempC)) {

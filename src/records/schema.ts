@@ -123,16 +123,24 @@ export const FieldIons = z.object({
   nh3nh4NMgL: Finite.min(0).optional(),
 });
 
-/** A laboratory result, kept apart from field values and never overwriting them. */
+/**
+ * A laboratory result, kept apart from field values and never overwriting them. A censored result
+ * ("<0.05", "ND", a U qualifier) has no value: `censored` with the lab's detection limit.
+ */
 export const LabResult = z.object({
   parameter: z.string().min(1).max(60),
-  value: Finite,
+  value: Finite.optional(),
+  censored: z.literal(true).optional(),
+  detectionLimit: Finite.min(0).optional(),
+  /** the unit as the lab wrote it */
   unit: z.string().max(30),
+  /** the same unit as a UCUM code (basis as an annotation: mg{N}/L), when recognised */
+  unitUcum: z.string().max(40).optional(),
   labSampleId: z.string().max(100).optional(),
   method: z.string().max(200).optional(),
   qualifier: z.string().max(20).optional(),
   importedAt: IsoDateTime,
-});
+}).refine((l) => (l.value === undefined) === (l.censored === true), { error: 'A lab result has either a value or is censored (not detected)' });
 
 export const QcType = z.enum(['environmental', 'replicate', 'blank']);
 export const Qualifier = z.enum(['estimated', 'unstable', 'outside-calibration', 'suspect']);

@@ -3,36 +3,18 @@
 // (issue 12); the engine computes it (conductanceFactorFromAnalyses), this file gathers the inputs.
 import { conductanceFactorFromAnalyses, type SampleInput, type SiteConductanceFactor } from '../chemistry';
 import { deriveSample } from './derive';
-import type { LabResult, Sample, Settings } from './schema';
+import type { Sample, Settings } from './schema';
+import { labEngineInputs } from './lab-units';
 
-/** Lab parameter names (lower case, as labs commonly write them) → engine input field, mg/L. */
-export const LAB_PARAMS: Record<string, keyof SampleInput> = {
-  calcium: 'caMgL', ca: 'caMgL', magnesium: 'mgMgL', mg: 'mgMgL', sodium: 'naMgL', na: 'naMgL', potassium: 'kMgL', k: 'kMgL',
-  chloride: 'clMgL', cl: 'clMgL', sulfate: 'so4MgL', so4: 'so4MgL', 'nitrate as n': 'no3NMgL', no3n: 'no3NMgL',
-  fluoride: 'fMgL', f: 'fMgL', silica: 'sio2MgL', sio2: 'sio2MgL', tds: 'tdsMgL', 'alkalinity as caco3': 'alkalinityMgLCaCO3',
-};
-
-/** The engine fields a sample's lab results give (mg/L results only; censored "<" values left out). */
-export function labInputs(lab: readonly LabResult[]): Partial<Record<keyof SampleInput, number>> {
-  const out: Partial<Record<keyof SampleInput, number>> = {};
-  for (const l of lab) {
-    const field = LAB_PARAMS[l.parameter.trim().toLowerCase()];
-    const unit = l.unit.replace(/\s/g, '').toLowerCase();
-    if (!field || (unit !== 'mg/l' && unit !== '') || (l.qualifier ?? '').includes('<')) continue;
-    out[field] = l.value;
-  }
-  return out;
-}
+/** The engine fields a sample's lab results give (converted from any recognised unit; censored values left out). */
+export const labInputs = labEngineInputs;
 
 /** A sample's full analysis: its field-derived input with lab values filling the fields not measured in the field. */
 export function fullAnalysisInput(sample: Pick<Sample, 'field' | 'pressure' | 'lab'>, settings: Pick<Settings, 'activityModel' | 'conductanceFactor'>): SampleInput | undefined {
+  // deriveSample already fills what the field did not measure from the lab results
   const d = deriveSample(sample, settings);
   if (d.error || !Number.isFinite(d.input.tempC)) return undefined;
-  const input: SampleInput = { ...d.input };
-  for (const [k, v] of Object.entries(labInputs(sample.lab)) as Array<[keyof SampleInput, number]>) {
-    if (input[k] === undefined || input[k] === null) (input as unknown as Record<string, number>)[k] = v;
-  }
-  return input;
+  return { ...d.input };
 }
 
 /**

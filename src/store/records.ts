@@ -6,6 +6,7 @@ import type {
   Draft,
   FieldDay,
   Instrument,
+  LabResult,
   Revision as RevisionT,
   Sample,
   Settings,
@@ -94,6 +95,10 @@ interface WithMeta {
   revision?: number;
 }
 
+function revisionOf(entity: Entity, entityId: string, at: string, by: string, action: RevisionT['action'], changes: RevisionT['changes']): RevisionT {
+  return { id: newId('rev'), entity, entityId, at, seq: nextSeq(), by, action, changes };
+}
+
 /**
  * Create or update an entity, appending a revision with the changed fields. Returns the stored value.
  * The revision and the record are written in one transaction: both or neither.
@@ -122,17 +127,7 @@ async function putWithRevision<T extends WithMeta>(entity: Entity, input: unknow
       ? diff(before, value).filter((c) => c.path !== 'updatedAt' && c.path !== 'revision')
       : [{ path: '', from: null, to: 'created' }];
     await store.put(value as never);
-    const rev: RevisionT = {
-      id: newId('rev'),
-      entity,
-      entityId: value.id,
-      at: now,
-      seq: nextSeq(),
-      by,
-      action: action ?? (before ? 'update' : 'create'),
-      changes,
-    };
-    await tx.objectStore('revisions').put(S.Revision.parse(rev));
+    await tx.objectStore('revisions').put(S.Revision.parse(revisionOf(entity, value.id, now, by, action ?? (before ? 'update' : 'create'), changes)));
     await tx.done;
     notifyChange({ store: storeName, ids: [value.id] });
     return value;
@@ -190,6 +185,41 @@ async function codeFor(sample: SampleInputRecord): Promise<string | undefined> {
   const clashes = await db.getAllFromIndex('samples', 'sampleCode', IDBKeyRange.bound(base, `${base}\uffff`));
   const taken = new Set(clashes.map((c) => c.sampleCode!));
   return freeSampleCode(base, taken);
+}
+
+/**
+ * Add lab results to several samples in ONE transaction: every sample gets its results and an
+ * 'import' revision, or (any sample missing, deleted or invalid, or the disk full) none does.
+ */
+export async function addLabResults(additions: ReadonlyArray<{ sampleId: string; lab: LabResult[] }>, by: string): Promise<Sample[]> {
+  const db = await getDb();
+  const S = await loadSchemas();
+  const now = isoWithOffset();
+  const tx = db.transaction(['samples', 'revisions'], 'readwrite');
+  tx.done.catch(() => undefined); // the error that matters is thrown below
+  try {
+    const stored: Sample[] = [];
+    for (const { sampleId, lab } of additions) {
+      const before = await tx.objectStore('samples').get(sampleId);
+      if (!before) throw new StoreError('not-found', `Sample ${sampleId} is not on this phone: nothing was stored.`);
+      if (before.deletedAt) throw new StoreError('invalid', `Sample ${before.sampleCode ?? sampleId} was deleted: restore it before adding lab values. Nothing was stored.`);
+      const value = parseOrThrow(S.Sample, { ...before, lab: [...before.lab, ...lab], updatedAt: now, revision: (before.revision ?? 1) + 1 }, 'sample');
+      await tx.objectStore('samples').put(value);
+      const changes = diff(before, value).filter((c) => c.path !== 'updatedAt' && c.path !== 'revision');
+      await tx.objectStore('revisions').put(S.Revision.parse(revisionOf('sample', sampleId, now, by, 'import', changes)));
+      stored.push(value);
+    }
+    await tx.done;
+    notifyChange({ store: 'samples', ids: stored.map((x) => x.id) });
+    return stored;
+  } catch (e) {
+    try {
+      tx.abort();
+    } catch {
+      // already aborted (a failed write) or finished
+    }
+    throw toStoreError(e);
+  }
 }
 
 /** A sample by its readable code (as written on a bottle or scanned from a label). */

@@ -3,7 +3,7 @@
 // offline, and runs under its own Content-Security-Policy.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { cspViolations, launchPersistent, openControlled, serveSwappable, shot } from './helpers';
@@ -84,8 +84,8 @@ describe('the build served from a sub-folder (/field/)', () => {
     await page.goto(`${base}?open=lab-import`);
     await expect(page.locator('h1', { hasText: 'Lab results' }).textContent()).resolves.toBe('Lab results');
     await page.getByText('File: lab-report.csv').waitFor();
-    await page.locator('table caption').waitFor();
-    await expect(page.locator('table caption').textContent()).resolves.toMatch(/rows ready/);
+    await page.locator('main p.lead[role="status"]').waitFor();
+    await expect(page.locator('main p.lead[role="status"]').textContent()).resolves.toMatch(/rows ready/);
     await shot(page, 'lab-import-launched');
   });
 
@@ -112,6 +112,8 @@ describe('the build served from a sub-folder (/field/)', () => {
     expect(meta).toContain("script-src 'self'");
     expect(meta).toMatch(/connect-src 'self' https: http:\/\/127\.0\.0\.1:\* http:\/\/localhost:\*/);
     expect(readFileSync('dist/index.html', 'utf8')).not.toMatch(/<script(?![^>]*\bsrc=)[^>]*>/); // no inline script in the build
+    // the UCUM library is for the office command only: none of it in what the phone downloads
+    for (const f of readdirSync('dist/assets')) expect(readFileSync(join('dist/assets', f), 'utf8'), f).not.toMatch(/UcumLhcUtils|ucumDefs/);
     await expect(page.locator('meta[name="referrer"]').getAttribute('content')).resolves.toBe('no-referrer');
     const ran = await page.evaluate(async () => {
       const s = document.createElement('script');

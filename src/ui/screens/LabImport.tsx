@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'preact/hooks';
-import { applyLabRows, checkLabRows, guessMapping, type LabMapping, type LabRowCheck } from '../../exchange/lab-import';
+import { applyLabRows, checkLabRows, guessMapping, sampleLabels, type LabMapping, type LabRowCheck } from '../../exchange/lab-import';
 import { parseCsv } from '../../exchange/csv';
 import { getDb } from '../../store/connection';
 import { SelectField } from '../components/Field';
@@ -7,15 +7,20 @@ import { useSettings } from '../data';
 import { onLaunchedFile } from '../launch';
 
 const FIELDS: Array<{ key: keyof LabMapping; label: string; required: boolean }> = [
-  { key: 'sampleId', label: 'Sample ID column', required: true },
+  { key: 'sampleId', label: 'Client sample ID column', required: true },
   { key: 'parameter', label: 'Parameter column', required: true },
   { key: 'value', label: 'Value column', required: true },
   { key: 'unit', label: 'Unit column', required: true },
   { key: 'qualifier', label: 'Qualifier column', required: false },
+  { key: 'detectionLimit', label: 'Detection limit column', required: false },
   { key: 'labSampleId', label: 'Lab sample ID column', required: false },
+  { key: 'method', label: 'Method column', required: false },
 ];
 
-/** Pick a lab CSV, map its columns, preview with errors per row, then store as lab values. */
+const shown = (r: LabRowCheck) =>
+  r.censored ? `not detected${r.detectionLimit !== undefined ? ` (< ${r.detectionLimit})` : ''} ${r.unit}` : `${r.value ?? ''} ${r.unit}`;
+
+/** Pick a lab CSV, map its columns, preview every row with its problems, then store the file at once. */
 export function LabImport() {
   const settings = useSettings();
   const [text, setText] = useState('');
@@ -24,28 +29,31 @@ export function LabImport() {
   const [rows, setRows] = useState<LabRowCheck[]>([]);
   const [fileErrors, setFileErrors] = useState<string[]>([]);
   const [msg, setMsg] = useState('');
+  const [err, setErr] = useState('');
+  const [fileName, setFileName] = useState('');
 
+  const samples = async () => sampleLabels(await (await getDb()).getAll('samples'));
   const preview = async (m: Partial<LabMapping>, t = text) => {
     if (!FIELDS.every((f) => !f.required || m[f.key])) return setRows([]);
-    const ids = new Set((await (await getDb()).getAllKeys('samples')) as string[]);
-    const r = checkLabRows(t, m as LabMapping, ids);
+    const r = checkLabRows(t, m as LabMapping, await samples());
     setRows(r.rows);
     setFileErrors(r.fileErrors);
   };
-
-  const [fileName, setFileName] = useState('');
   const load = async (f: File) => {
     const t = await f.text();
-    const h = parseCsv(t).header;
-    const m = guessMapping(h);
-    setText(t); setHeader(h); setMapping(m); setMsg(''); setFileName(f.name);
+    const parsed = parseCsv(t);
+    const m = guessMapping(parsed.header, parsed.rows.slice(0, 200), new Set((await samples()).keys()));
+    setText(t); setHeader(parsed.header); setMapping(m); setMsg(''); setErr(''); setFileName(f.name);
     await preview(m, t);
   };
   // a CSV opened with the installed app (manifest file_handlers) lands here
   useEffect(() => onLaunchedFile((f) => void load(f)), []);
 
+  const ready = rows.filter((r) => r.errors.length === 0);
+  const problems = rows.filter((r) => r.errors.length > 0);
   return (
     <div>
+      <p class="muted">Values are stored beside the field values, never over them. Major ions from the lab fill what the field did not measure, so ionic strength comes from the full composition and the charge balance is checked.</p>
       <div class="field">
         <label for="labfile">Lab results file (CSV)</label>
         <input id="labfile" type="file" accept=".csv,text/csv" onChange={async (e) => {
@@ -67,23 +75,29 @@ export function LabImport() {
       {fileErrors.map((e) => <p key={e} class="field-error">{e}</p>)}
       {rows.length > 0 && (
         <>
-          <p class="lead" role="status">{rows.filter((r) => r.errors.length === 0).length} of {rows.length} rows ready</p>
+          <p class="lead" role="status">{ready.length} of {rows.length} rows ready{problems.length > 0 ? `; ${problems.length} with problems (listed first)` : ''}</p>
           <ul class="cards row-cards" aria-label="Lab rows to import">
-            {rows.slice(0, 30).map((r) => (
+            {[...problems, ...ready].slice(0, 50).map((r) => (
               <li key={r.row} class={r.errors.length ? 'card bad-row' : 'card'}>
-                <span class="card-title">Row {r.row} · {r.parameter} {r.value ?? ''} {r.unit}</span>
-                <span class="muted">Sample {r.sampleId}</span>
+                <span class="card-title">Row {r.row} · {r.parameter} {shown(r)}</span>
+                <span class="muted">Sample {r.label}</span>
                 <span class={r.errors.length ? 'field-error' : 'stable yes'}>{r.errors.join('; ') || 'Ready'}</span>
               </li>
             ))}
           </ul>
-          {rows.length > 30 && <p class="muted">… and {rows.length - 30} more rows.</p>}
-          <button type="button" class="btn btn-primary" onClick={async () => {
-            const r = await applyLabRows(rows, settings.operator || 'office import');
-            setMsg(`Stored ${r.values} lab values on ${r.samples} samples; ${r.skipped} rows skipped. Field values were not changed.`);
-          }}>Store as lab values</button>
+          {rows.length > 50 && <p class="muted">Showing 50 of {rows.length} rows.</p>}
+          <button type="button" class="btn btn-primary" disabled={ready.length === 0} onClick={async () => {
+            setErr(''); setMsg('');
+            try {
+              const r = await applyLabRows(rows, settings.operator || 'lab import');
+              setMsg(`Stored ${r.values} lab values on ${r.samples} samples${r.skipped ? `; ${r.skipped} rows with problems were left out` : ''}. Field values were not changed.`);
+            } catch (e) {
+              setErr(`${e instanceof Error ? e.message : String(e)} Nothing from this file was stored.`);
+            }
+          }}>{problems.length > 0 ? `Store the ${ready.length} ready rows (leave out ${problems.length})` : `Store all ${ready.length} rows`}</button>
         </>
       )}
+      {err && <p class="field-error" role="alert">{err}</p>}
       {msg && <p class="notice" role="status">{msg}</p>}
     </div>
   );
