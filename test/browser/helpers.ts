@@ -161,3 +161,23 @@ export async function serveSwappable(opts: { folder?: string } = {}): Promise<Se
     close: () => new Promise<void>((r) => { server.closeAllConnections(); server.close(() => r()); }),
   };
 }
+
+/** The production app in a phone-sized context, controlled by its service worker, then offline. */
+export async function offlinePhoneApp(): Promise<{ served: Served; context: BrowserContext; page: Page; close(): Promise<void> }> {
+  const browser = await launch();
+  const served = await serveDist();
+  const context = await phoneContext(browser);
+  const page = await context.newPage();
+  await openControlled(page, served.url);
+  await context.setOffline(true);
+  return {
+    served,
+    context,
+    page,
+    close: async () => {
+      await context.close();
+      await browser.close();
+      await served.close();
+    },
+  };
+}
