@@ -9,6 +9,7 @@ import {
   InputError,
   LOG_K_UNCERTAINTY,
   MODEL_MAX_IONIC_STRENGTH,
+  salinityFromSpecificConductance,
   uncertaintiesFromEvidence,
   type SampleInput,
 } from '../../src/chemistry';
@@ -172,5 +173,21 @@ describe('fresh to brackish: one continuous estimate', () => {
     expect(field.impliedSeawaterIonsMgL!.naMgL).toBeGreaterThan(10000);
     expect(Math.abs(field.saturationIndex.calcite! - full.saturationIndex.calcite!)).toBeLessThan(field.calciteSiUncertainty!);
     expect(Math.abs(field.saturationIndex.calcite! - full.saturationIndex.calcite!)).toBeLessThan(0.1);
+  });
+  it.each([0.1, 0.3, 0.6])('an estuarine mix (%s seawater) from field readings agrees with its full analysis within the band', (f) => {
+    // seawater (Millero 2013, mg/kg; from memory) mixed with a hard fresh water of our choosing
+    const sea = { caMgL: 412, mgMgL: 1284, naMgL: 10781, kMgL: 399, clMgL: 19353, so4MgL: 2712, alkalinityMgLCaCO3: 117 };
+    const fresh = { caMgL: 45, mgMgL: 8, naMgL: 12, kMgL: 2, clMgL: 15, so4MgL: 20, alkalinityMgLCaCO3: 150 };
+    const mix = Object.fromEntries(Object.keys(sea).map((k) => [k, f * sea[k as keyof typeof sea] + (1 - f) * fresh[k as keyof typeof fresh]])) as typeof sea;
+    // its SC at 25 °C: the conductance whose PSS-78 salinity is f × 35 (bisection)
+    let lo = 0, hi = 60000;
+    for (let i = 0; i < 60; i++) {
+      const mid = (lo + hi) / 2;
+      if (salinityFromSpecificConductance(mid).salinity < 35 * f) lo = mid; else hi = mid;
+    }
+    const base = { tempC: 20, pH: 7.9 };
+    const full = analyzeSample({ ...base, ...mix });
+    const field = analyzeSample({ ...base, scUsPerCm: lo, caMgL: mix.caMgL, alkalinityMgLCaCO3: mix.alkalinityMgLCaCO3 });
+    expect(Math.abs(field.saturationIndex.calcite! - full.saturationIndex.calcite!)).toBeLessThan(field.calciteSiUncertainty!);
   });
 });
