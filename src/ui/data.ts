@@ -31,8 +31,13 @@ export function useLive<T>(load: () => Promise<T>, deps: unknown[], stores: stri
 }
 
 export function useSettings(): Settings {
+  return useSettingsState().settings;
+}
+
+/** The settings, and whether they have been read yet (until then the defaults stand in). */
+export function useSettingsState(): { settings: Settings; loaded: boolean } {
   const { data } = useLive(getSettings, [], ['settings']);
-  return data ?? DEFAULT_SETTINGS;
+  return { settings: data ?? DEFAULT_SETTINGS, loaded: data !== undefined };
 }
 
 /** The method profile chosen in Settings (its newest version). */

@@ -15,20 +15,36 @@ function read(crew: string): Record<string, boolean> {
   }
 }
 
-export function useFolds(crew: string): { isOpen(id: string, fallback?: boolean): boolean; set(id: string, open: boolean): void } {
-  const [state, setState] = useState<{ crew: string; open: Record<string, boolean> }>(() => ({ crew, open: read(crew) }));
-  const cur = state.crew === crew ? state.open : read(crew);
-  if (state.crew !== crew) setState({ crew, open: cur });
+function write(crew: string, open: Record<string, boolean>): void {
+  try {
+    localStorage.setItem(KEY(crew), JSON.stringify(open));
+  } catch {
+    /* private mode or full storage: the section simply is not remembered */
+  }
+}
+
+/**
+ * `crew` is null while Settings are still being read: taps in that moment are kept in memory and
+ * written for the crew once it is known, so an early tap is never lost.
+ */
+export function useFolds(crew: string | null): { isOpen(id: string, fallback?: boolean): boolean; set(id: string, open: boolean): void } {
+  const [state, setState] = useState<{ crew: string | null; open: Record<string, boolean>; early: Record<string, boolean> }>(() => ({ crew, open: crew === null ? {} : read(crew), early: {} }));
+  let cur = state;
+  if (state.crew !== crew) {
+    const open = crew === null ? {} : { ...read(crew), ...state.early };
+    if (crew !== null && Object.keys(state.early).length) write(crew, open);
+    cur = { crew, open, early: {} };
+    setState(cur);
+  }
   return {
-    isOpen: (id, fallback = false) => cur[id] ?? fallback,
+    isOpen: (id, fallback = false) => cur.open[id] ?? fallback,
     set: (id, open) => {
-      if ((cur[id] ?? false) === open) return;
-      const next = { ...cur, [id]: open };
-      setState({ crew, open: next });
-      try {
-        localStorage.setItem(KEY(crew), JSON.stringify(next));
-      } catch {
-        /* private mode or full storage: the section simply is not remembered */
+      if ((cur.open[id] ?? false) === open && cur.open[id] !== undefined) return;
+      const next = { ...cur.open, [id]: open };
+      if (cur.crew === null) setState({ ...cur, open: next, early: { ...cur.early, [id]: open } });
+      else {
+        setState({ ...cur, open: next });
+        write(cur.crew, next);
       }
     },
   };

@@ -1,25 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { launch, openControlled, phoneContext, serveDist, shot, type Served } from './helpers';
+import { axeViolations } from './axe';
 
 let browser: Browser;
 let served: Served;
 let context: BrowserContext;
 let page: Page;
-
-const require = createRequire(import.meta.url);
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
-
-async function axeViolations(p: Page): Promise<Array<{ id: string; impact: string; nodes: number }>> {
-  // evaluated through the debugging protocol: an inline <script> tag would be refused by the app's CSP
-  await p.evaluate(axeSource);
-  return p.evaluate(async () => {
-    const r = await (window as unknown as { axe: { run(o?: unknown): Promise<{ violations: Array<{ id: string; impact: string; nodes: unknown[] }> }> } }).axe.run();
-    return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.length }));
-  });
-}
 
 /** Wait until exactly n elements match (lists fill asynchronously from IndexedDB). */
 async function waitCount(p: Page, selector: string, n: number): Promise<void> {

@@ -3,24 +3,12 @@
 // invented demo scenario or made up here; QC limits come from the default method profile.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { launch, openControlled, serveDist, shot, type Served } from './helpers';
+import { seriousAxe } from './axe';
+import { readFileSync } from 'node:fs';
 
 let browser: Browser;
 let served: Served;
-
-const require = createRequire(import.meta.url);
-const axeSource = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
-
-async function seriousAxe(p: Page): Promise<Array<{ id: string; impact: string; nodes: number }>> {
-  await p.evaluate(axeSource); // through the debugging protocol: the app's CSP refuses inline scripts
-  const all = await p.evaluate(async () => {
-    const r = await (window as unknown as { axe: { run(o?: unknown): Promise<{ violations: Array<{ id: string; impact: string; nodes: unknown[] }> }> } }).axe.run();
-    return r.violations.map((v) => ({ id: v.id, impact: v.impact, nodes: v.nodes.length }));
-  });
-  return all.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-}
 
 /** A 360 × 740 phone, offline after the service worker took control. */
 async function offlinePhone(): Promise<{ context: BrowserContext; page: Page }> {

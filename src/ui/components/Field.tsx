@@ -171,7 +171,7 @@ export function TimeField(p: { id: string; label: string; iso: string; onChange:
   const local = m ? m[1]! : '';
   const offset = m ? m[3]! : isoWithOffset().slice(-6);
   return (
-    <Labelled id={p.id} label={p.label} error={p.error}>
+    <Labelled id={p.id} label={`${p.label} (${showOffset(`x${offset}`)})`} error={p.error}>
       <input
         id={p.id}
         type="datetime-local"
@@ -182,7 +182,6 @@ export function TimeField(p: { id: string; label: string; iso: string; onChange:
           if (v) p.onChange(`${v.slice(0, 16)}:00${offset}`);
         }}
       />
-      <span class="unit">{showOffset(`x${offset}`)}</span>
     </Labelled>
   );
 }

@@ -6,6 +6,7 @@ import type { MethodProfile } from '../../chemistry';
 import type { Sample, Settings } from '../../records/schema';
 import type { SampleInputRecord } from '../../store/records';
 import type { FormErrors, SampleForm } from './sample-form';
+import { warningKind } from '../warning-kinds';
 
 type Field = Sample['field'];
 type Part = { field: Field; pressure: Sample['pressure'] | undefined };
@@ -100,14 +101,30 @@ function say(drop: Drop, form: SampleForm, engineMessage: string): string {
   return `${drop.label}: this value cannot be used (${engineMessage.replace(/\.$/, '')}). Check the value and its unit.`;
 }
 
-/** Derive as far as the entries allow; refused entries come back as errors on their own boxes. */
+/** An engine warning tied to a box, said in the crew's unit where the engine gives a range in its own. */
+function sayWarning(drop: Drop, form: SampleForm, message: string, d: Derived): string {
+  const t = drop.typed(form);
+  const typed = Number(t.value.replace(',', '.'));
+  const m = /(-?[\d.]+)–(-?[\d.]+) kPa/.exec(message);
+  if (drop === PRESSURE && m && d.pressureKPa && Number.isFinite(typed)) {
+    const k = typed / d.pressureKPa;
+    return `${drop.label} ${t.value} ${t.unit} is outside ${fmt(Number(m[1]) * k)}–${fmt(Number(m[2]) * k)} ${t.unit}: check the value and its unit.`;
+  }
+  return message;
+}
+
+/**
+ * Derive as far as the entries allow. `errors`: entries the engine refused (marked, left out, and
+ * to be corrected before saving). `marks`: warnings that need action and name an entry, shown on
+ * that entry's own box (a pressure slip, a unit slip) without blocking the save.
+ */
 export function deriveLive(
   form: SampleForm,
   record: SampleInputRecord,
   lab: Sample['lab'],
   settings: Pick<Settings, 'activityModel' | 'conductanceFactor'>,
   profile: MethodProfile,
-): { derived: Derived; errors: FormErrors } {
+): { derived: Derived; errors: FormErrors; marks: FormErrors } {
   let part: Part = { field: record.field as Field, pressure: record.pressure };
   const errors: FormErrors = {};
   let d = deriveSample({ ...part, lab }, settings, profile);
@@ -118,5 +135,12 @@ export function deriveLive(
     part = drop.remove(part);
     d = deriveSample({ ...part, lab }, settings, profile);
   }
-  return { derived: d, errors };
+  const marks: FormErrors = {};
+  for (const w of d.warnings) {
+    const drop = w.field ? DROPS[w.field] : undefined;
+    if (!drop || warningKind(w) !== 'action') continue;
+    const key = drop.formKey(form);
+    if (!errors[key] && !marks[key]) marks[key] = sayWarning(drop, form, w.message, d);
+  }
+  return { derived: d, errors, marks };
 }

@@ -26,7 +26,7 @@ import { StateBadge } from '../components/State';
 import { SampleCode } from '../components/SampleCode';
 import { ParentPicker, QcLiveVerdict } from '../day/QcSection';
 import { TitrationPlot } from '../components/TitrationPlot';
-import { useLive, useProfile, useSettings } from '../data';
+import { useLive, useProfile, useSettingsState } from '../data';
 import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm, type TimedRaw } from '../forms/sample-form';
 import { deriveLive } from '../forms/live-derive';
 import { useFolds } from '../folds';
@@ -46,7 +46,7 @@ function draftIdFor(sampleId: string | undefined): string {
 
 /** New sample (#/new) or an existing one (#/sample/<id>). Every keystroke is saved as a draft. */
 export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a new sample's site, when the day view offered it */ siteId?: string | undefined }) {
-  const settings = useSettings();
+  const { settings, loaded: settingsLoaded } = useSettingsState();
   const profile = useProfile();
   const sites = useLive(listSites, [], ['sites']);
   // A new sample's form is usable at once (no wait for storage); an existing one waits for its record.
@@ -151,20 +151,26 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
     setForm((f) => (f ? { ...f, crew: f.crew || settings.operator, condUnit: u.conductance, doUnit: u.do, alkUnit: u.alkalinity, pressureUnit: u.pressure } : f));
   }, [settings]);
 
-  const folds = useFolds(settings.operator);
+  const folds = useFolds(settingsLoaded ? settings.operator : null);
   const parsed = useMemo(() => (form ? formToSample(form) : null), [form]);
   // formToSample fills every default the derivation reads (kits, ions, alpha), so no schema pass is needed here.
   const live = useMemo(() => (form && parsed ? deriveLive(form, parsed.record, stored?.lab ?? [], settings, profile) : null), [parsed, settings, stored, profile]);
 
   if (!form || !parsed || !live) return <p class="muted">Opening…</p>;
   const derived = live.derived;
-  const e: Record<string, string> = { ...parsed.errors, ...live.errors };
+  const blocking: Record<string, string> = { ...parsed.errors, ...live.errors };
+  // shown on each box: what must be corrected, and warnings about that very entry
+  const e: Record<string, string> = { ...live.marks, ...blocking };
   const warn = splitWarnings(derived.warnings);
 
   const save = async () => {
     setSaveError(null);
     const need = [...parsed.missing];
-    if (Object.keys(e).length > 0) need.push('corrections to the fields marked in red');
+    const wrong = Object.keys(blocking);
+    if (wrong.length > 0) {
+      need.push(`a correction to ${[...new Set(wrong.map(fieldWords))].join(', ')} (marked in red)`);
+      for (const k of wrong) if (FOLD_OF(k)) folds.set(FOLD_OF(k)!, true); // open where the red box is
+    }
     setMissing(need);
     if (need.length > 0) return;
     setSaving(true);
@@ -381,6 +387,30 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
       </div>
     </div>
   );
+}
+
+/** The box an error key belongs to, in words, for "Before saving, add: …". */
+function fieldWords(key: string): string {
+  const [head = '', sub = ''] = key.split('.');
+  const words: Record<string, string> = {
+    time: 'the sampling time', temp: 'water temperature', cond: 'conductance', pH: 'pH', do: 'dissolved oxygen', alk: 'alkalinity',
+    kitValue: 'the calcium kit', totalHardness: 'total hardness', pressure: 'barometric pressure', ecTempC: 'the EC reading’s temperature',
+    alpha: 'the compensation coefficient', titSampleMl: 'the titration', titNormality: 'the titration', titCf: 'the titration', titPoints: 'the titration points',
+  };
+  if (head === 'ions') return ION_FIELDS.find((f) => f.key === sub)?.label.toLowerCase() ?? 'an ion';
+  return words[head] ?? head;
+}
+
+/** The folded section that holds a box, so an error there can open it. */
+function FOLD_OF(key: string): string | undefined {
+  const [head = '', sub = '0'] = key.split('.');
+  if (['temp', 'cond', 'pH', 'do'].includes(head)) return sub === '0' ? undefined : 'readings';
+  if (head === 'ecTempC' || head === 'alpha') return 'readings';
+  if (head.startsWith('tit')) return 'titration';
+  if (head === 'ions' || head === 'totalHardness') return 'ions';
+  if (head === 'pressure') return 'conditions';
+  if (head === 'time') return 'when';
+  return undefined;
 }
 
 const QC_WORDS: Record<SampleForm['qcType'], string> = { environmental: 'environmental', replicate: 'replicate', blank: 'blank' };

@@ -51,6 +51,12 @@ export function SettingsScreen() {
       <SelectField id="alkUnit" label="Usual alkalinity unit" value={s.units.alkalinity} onChange={(v) => setS({ ...s, units: { ...s.units, alkalinity: v as Settings['units']['alkalinity'] } })}>
         <option value="mg/L CaCO3">mg/L as CaCO₃</option><option value="meq/L">meq/L</option><option value="mg/L HCO3">mg/L as HCO₃</option>
       </SelectField>
+      <SelectField id="condUnitSetting" label="Usual conductance unit" value={s.units.conductance} onChange={(v) => setS({ ...s, units: { ...s.units, conductance: v as Settings['units']['conductance'] } })}>
+        <option value="uS/cm">µS/cm</option><option value="mS/cm">mS/cm</option>
+      </SelectField>
+      <SelectField id="doUnitSetting" label="Usual dissolved oxygen unit" value={s.units.do} onChange={(v) => setS({ ...s, units: { ...s.units, do: v as Settings['units']['do'] } })}>
+        <option value="mg/L">mg/L</option><option value="%">% saturation</option>
+      </SelectField>
       <SelectField id="pUnit" label="Usual pressure unit" value={s.units.pressure} onChange={(v) => setS({ ...s, units: { ...s.units, pressure: v as Settings['units']['pressure'] } })}>
         <option value="hPa">hPa</option><option value="kPa">kPa</option><option value="mmHg">mmHg</option>
       </SelectField>
