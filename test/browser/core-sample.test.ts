@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launch, openControlled, serveDist, shot, type Served } from './helpers';
-import { clearBand, screensTall, scrolled, startScrollMeter, Thumb } from './measure';
+import { enterCore, screensTall, scrolled, startScrollMeter, Thumb } from './measure';
 
 let browser: Browser;
 let served: Served;
@@ -40,13 +40,7 @@ describe('the core sample path at 360 × 740', () => {
     await page.getByLabel('Site', { exact: true }).waitFor();
     const tall = await screensTall(page);
     await shot(page, 'core-path-empty-360');
-    await thumb.choose(page.getByLabel('Site', { exact: true }), SITE);
-    await thumb.fill(page.getByLabel('Water temperature'), '9.4');
-    await thumb.fill(page.getByLabel('Specific conductance'), '450');
-    await thumb.fill(page.getByLabel('pH', { exact: true }), '8.1');
-    await thumb.fill(page.getByLabel('Dissolved oxygen', { exact: true }), '9.8');
-    await thumb.fill(page.getByLabel('Alkalinity', { exact: true }), '180');
-    await thumb.fill(page.getByLabel('Calcium (kit)'), '60');
+    await enterCore(page, thumb, { site: SITE, tempC: '9.4', sc: '450', pH: '8.1', doMgL: '9.8', alk: '180', ca: '60' });
     await shot(page, 'core-path-filled-360');
     const save = page.getByRole('button', { name: /^Save sample/ });
     await thumb.bringIntoView(save);

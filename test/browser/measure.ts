@@ -1,6 +1,7 @@
 // Measures what a thumb does on a phone: taps, keystrokes and page scrolling, the way a crew
 // member would do them (scroll just enough to see the next control, tap it, type, move on).
 import type { Locator, Page } from 'playwright-core';
+import { openControlled } from './helpers';
 
 export interface Effort {
   taps: number;
@@ -103,4 +104,42 @@ export class Thumb {
 /** How many viewport heights the page is, with the keyboard closed. */
 export async function screensTall(page: Page): Promise<number> {
   return page.evaluate(() => document.documentElement.scrollHeight / innerHeight);
+}
+
+/** The six core readings of one ordinary sample, typed as a crew would (site chosen first). */
+export interface CoreValues {
+  site: string;
+  tempC: string;
+  sc: string;
+  pH: string;
+  doMgL: string;
+  alk: string;
+  ca: string;
+}
+
+export async function enterCore(page: Page, thumb: Thumb, v: CoreValues): Promise<void> {
+  await thumb.choose(page.getByLabel('Site', { exact: true }), v.site);
+  await thumb.fill(page.getByLabel('Water temperature'), v.tempC);
+  await thumb.fill(page.getByLabel('Specific conductance'), v.sc);
+  await thumb.fill(page.getByLabel('pH', { exact: true }), v.pH);
+  await thumb.fill(page.getByLabel('Dissolved oxygen', { exact: true }), v.doMgL);
+  await thumb.fill(page.getByLabel('Alkalinity', { exact: true }), v.alk);
+  await thumb.fill(page.getByLabel('Calcium (kit)'), v.ca);
+}
+
+/**
+ * Open the app under its service worker, visit the given lazy screens while online (so their code
+ * is cached), load the demo creek, then cut the network as at the bank.
+ */
+export async function readyOffline(page: Page, url: string, hashes: string[]): Promise<void> {
+  await openControlled(page, url);
+  for (const hash of hashes) {
+    await page.goto(url + hash);
+    await page.locator('h1').waitFor();
+  }
+  await page.goto(url + '#/today');
+  await page.getByRole('button', { name: 'Load demo creek' }).click();
+  await page.locator('.sample-card').first().waitFor();
+  await page.context().setOffline(true);
+  await page.getByText('No signal').waitFor();
 }

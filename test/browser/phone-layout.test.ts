@@ -3,7 +3,8 @@
 // 48 × 48 px, no serious axe-core finding; a screenshot of each screen at 360 px.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launch, openControlled, serveDist, shot, type Served } from './helpers';
+import { launch, serveDist, shot, type Served } from './helpers';
+import { readyOffline } from './measure';
 import { axeViolations } from './axe';
 import { AREAS, DETAIL_PAGES, EXTRA_PAGES } from '../../src/ui/router';
 
@@ -26,17 +27,8 @@ const LAB_CSV = 'sample_id,parameter,value,unit\nNO-SUCH-SAMPLE,chloride,4.2,mg/
 async function phone(width: number): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({ viewport: { width, height: 740 }, deviceScaleFactor: 2, hasTouch: true, isMobile: true });
   const page = await context.newPage();
-  await openControlled(page, served.url);
   // every lazy screen once while online, so its chunk is cached for the offline walk
-  for (const hash of ['#/new', '#/sites', '#/site/demo-site-wf01', '#/checks', '#/send', '#/lab', '#/settings', '#/about']) {
-    await page.goto(served.url + hash);
-    await page.locator('h1').waitFor();
-  }
-  await page.goto(served.url + '#/today');
-  await page.getByRole('button', { name: 'Load demo creek' }).click();
-  await page.locator('.sample-card').first().waitFor();
-  await context.setOffline(true);
-  await page.getByText('No signal').waitFor();
+  await readyOffline(page, served.url, ['#/new', '#/sites', '#/site/demo-site-wf01', '#/checks', '#/send', '#/lab', '#/settings', '#/about']);
   return { context, page };
 }
 
@@ -152,6 +144,13 @@ const SCREENS: Screen[] = [
   { name: 'about', hash: '#/about' },
 ];
 
+async function visit(page: Page, s: Screen): Promise<void> {
+  await page.goto(served.url + s.hash);
+  await page.locator('h1').waitFor();
+  await s.prepare?.(page);
+  await page.waitForTimeout(150);
+}
+
 it('the walk below covers every route the app has', () => {
   const walked = new Set(SCREENS.map((s) => s.hash.replace(/^#\/([a-z]+).*$/, '$1')));
   walked.add('sample'); // opened from the day list
@@ -172,10 +171,7 @@ describe.each([320, 360, 390])('every screen at %i px, offline', (width) => {
   it('nothing wider than the phone, navigation fully visible, header fixed, targets ≥ 48 px', async () => {
     const problems: string[] = [];
     for (const s of SCREENS) {
-      await page.goto(served.url + s.hash);
-      await page.locator('h1').waitFor();
-      await s.prepare?.(page);
-      await page.waitForTimeout(150);
+      await visit(page, s);
       const l = await layout(page, width);
       if (l.docWidth > width) problems.push(`${s.name}: page ${l.docWidth} px wide: ${l.wide.join('; ')}`);
       else if (l.wide.length) problems.push(`${s.name}: wider than the phone: ${l.wide.join('; ')}`);
@@ -194,10 +190,7 @@ describe.each([320, 360, 390])('every screen at %i px, offline', (width) => {
     it('no serious or critical axe-core finding on the screens changed for the phone', async () => {
       const found: string[] = [];
       for (const s of SCREENS) {
-        await page.goto(served.url + s.hash);
-        await page.locator('h1').waitFor();
-        await s.prepare?.(page);
-        await page.waitForTimeout(150);
+        await visit(page, s);
         const bad = (await axeViolations(page)).filter((v) => v.impact === 'serious' || v.impact === 'critical');
         if (bad.length) found.push(`${s.name}: ${JSON.stringify(bad)}`);
       }

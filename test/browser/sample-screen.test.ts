@@ -5,8 +5,8 @@
 // Readings are invented for the demo creek.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
-import { launch, openControlled, serveDist, shot, type Served } from './helpers';
-import { Thumb } from './measure';
+import { launch, serveDist, shot, type Served } from './helpers';
+import { enterCore, readyOffline, Thumb } from './measure';
 
 let browser: Browser;
 let served: Served;
@@ -47,15 +47,7 @@ beforeAll(async () => {
     };
   });
   page = await context.newPage();
-  await openControlled(page, served.url);
-  for (const hash of ['#/new', '#/sites', '#/settings']) {
-    await page.goto(served.url + hash);
-    await page.locator('h1').waitFor();
-  }
-  await page.goto(served.url + '#/today');
-  await page.getByRole('button', { name: 'Load demo creek' }).click();
-  await page.locator('.sample-card').first().waitFor();
-  await context.setOffline(true);
+  await readyOffline(page, served.url, ['#/new', '#/sites', '#/settings']);
 });
 afterAll(async () => {
   await context?.close();
@@ -103,13 +95,8 @@ describe('the sample screen at 360 × 740, offline', () => {
   it('a warning that needs action is on screen whenever Save is', async () => {
     await page.goto(served.url + '#/new');
     const thumb = new Thumb(page);
-    await thumb.choose(page.getByLabel('Site', { exact: true }), SITE);
-    await thumb.fill(page.getByLabel('Water temperature'), '9.4');
-    await thumb.fill(page.getByLabel('Specific conductance'), '450');
-    await thumb.fill(page.getByLabel('pH', { exact: true }), '4.6');
-    await thumb.fill(page.getByLabel('Dissolved oxygen', { exact: true }), '9.8');
-    await thumb.fill(page.getByLabel('Alkalinity', { exact: true }), '180');
-    await thumb.fill(page.getByLabel('Calcium (kit)'), '60');
+    // pH 4.6 in a hard-water stream: a reading to check before leaving
+    await enterCore(page, thumb, { site: SITE, tempC: '9.4', sc: '450', pH: '4.6', doMgL: '9.8', alk: '180', ca: '60' });
     const save = page.getByRole('button', { name: 'Save sample' });
     await thumb.bringIntoView(save);
     const warning = page.locator('.save-warnings li').first();
