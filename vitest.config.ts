@@ -10,5 +10,8 @@ export default defineConfig({
     include: ['test/**/*.test.ts', 'test/**/*.test.tsx'],
     exclude: ['test/browser/**', 'node_modules/**'],
     setupFiles: ['fake-indexeddb/auto'],
+    // Property and fuzz tests run hundreds of cases; on a loaded 2-core machine the 5 s default
+    // turns a slow pass into a failure. A real hang still fails, at 30 s.
+    testTimeout: 30_000,
   },
 });
