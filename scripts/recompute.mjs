@@ -4,10 +4,38 @@
 //   npm run -s recompute -- day.csv --lab lab.csv --format values --out values.csv
 // Paths are relative to the folder the command was typed in. Without --out the CSV goes to
 // standard output (use npm's -s so npm prints nothing of its own there).
-import { createReadStream, createWriteStream, readFileSync, renameSync, rmSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { createReadStream, createWriteStream, renameSync, rmSync } from 'node:fs';
+import { join, resolve } from 'node:path';
 import { once } from 'node:events';
-import { runnerImport } from 'vite';
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+
+const ROOT = resolve(import.meta.dirname, '..');
+
+// The TypeScript is bundled by Vite in a child process, so the bundler's memory (about 150 MB) is
+// gone before the rows stream: this process holds only the engine, the lab index and one buffer.
+if (process.env.BANKSIDE_RECOMPUTE_BUILD) {
+  const { build } = await import('vite');
+  await build({
+    configFile: false,
+    publicDir: false,
+    logLevel: 'error',
+    root: ROOT,
+    build: { ssr: 'src/exchange/recompute.ts', outDir: process.env.BANKSIDE_RECOMPUTE_BUILD, emptyOutDir: true, target: 'node20', minify: false },
+  });
+  process.exit(0);
+}
+
+async function loadRecompute() {
+  const outDir = join(ROOT, 'node_modules', '.cache', 'bankside-recompute', String(process.pid));
+  const b = spawnSync(process.execPath, [fileURLToPath(import.meta.url)], { cwd: ROOT, env: { ...process.env, BANKSIDE_RECOMPUTE_BUILD: outDir }, stdio: ['ignore', 'ignore', 'pipe'], encoding: 'utf8' });
+  try {
+    if (b.status !== 0) throw new Error(`could not build the engine: ${b.stderr || b.error}`);
+    return await import(pathToFileURL(join(outDir, 'recompute.js')).href);
+  } finally {
+    rmSync(outDir, { recursive: true, force: true });
+  }
+}
 
 const USAGE = 'usage: npm run -s recompute -- samples.csv [--lab lab.csv] [--format samples|values] [--out FILE] [--encoding windows-1252]';
 const FORMATS = ['samples', 'values'];
@@ -39,7 +67,7 @@ const here = process.env.INIT_CWD || process.cwd();
 let partial = null;
 try {
   const opts = parseArgs(process.argv.slice(2));
-  const { module: rc } = await runnerImport(resolve(import.meta.dirname, '../src/exchange/recompute.ts'));
+  const rc = await loadRecompute();
   const inputPath = opts.input === '-' ? null : resolve(here, opts.input);
   const outPath = opts.out ? resolve(here, opts.out) : null;
   if (outPath && outPath === inputPath) throw new Error('--out would overwrite the input file: choose another name');
