@@ -8,6 +8,8 @@ export const DEFAULT_SETTINGS: Settings = {
   activityModel: 'auto',
   conductanceFactor: 1.5e-5,
   profileId: 'bankside-default',
+  projectId: '',
+  organizationId: '',
   units: { alkalinity: 'mg/L CaCO3', conductance: 'uS/cm', pressure: 'hPa', do: 'mg/L' },
   office: { endpoint: '', token: '', method: 'POST' },
 };

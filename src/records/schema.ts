@@ -101,12 +101,24 @@ export const Alkalinity = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('titration'), titration: TitrationRecord }),
 ]);
 
+/**
+ * An analytical method as the WQX lists it: its identifier and the body that publishes it
+ * (e.g. 3500-CA(B) / APHA, 300.0 / USEPA, 8203 / HACH).
+ */
+export const MethodRef = z.object({ id: z.string().min(1).max(35), context: z.string().min(1).max(32) });
+/** Which part of the water a result is of: unfiltered ('total') or passed through a filter ('dissolved'). */
+export const SampleFraction = z.enum(['total', 'dissolved']);
+
 export const KitResult = z.object({
   analyte: z.enum(['calcium', 'calcium-hardness', 'total-hardness', 'magnesium', 'ammonia-n', 'chloride', 'sulfate']),
   value: Finite.min(0),
   unit: z.enum(['mg/L', 'mg/L CaCO3', 'mmol/L', 'meq/L']),
   /** the kit's smallest step, same unit: carried into the uncertainty */
   step: Finite.min(0).optional(),
+  /** filtered water or not; when absent, the kit's default (records/methods.ts) */
+  fraction: SampleFraction.optional(),
+  /** the kit's method; when absent, the usual method of that kit type (records/methods.ts) */
+  method: MethodRef.optional(),
 });
 
 /** Optional extra ions entered in the field, mg/L (the engine's names). */
@@ -139,6 +151,10 @@ export const LabResult = z.object({
   labSampleId: z.string().max(100).optional(),
   method: z.string().max(200).optional(),
   qualifier: z.string().max(20).optional(),
+  /** sample fraction the lab analysed; when absent, the parameter's default (records/methods.ts) */
+  fraction: SampleFraction.optional(),
+  /** the lab's method as the WQX lists it; when absent, read from `method` or the parameter's default */
+  analyticalMethod: MethodRef.optional(),
   importedAt: IsoDateTime,
 }).refine((l) => (l.value === undefined) === (l.censored === true), { error: 'A lab result has either a value or is censored (not detected)' });
 
@@ -154,6 +170,8 @@ export const Sample = z.object({
   fieldDayId: Id.optional(),
   /** sampling time with its UTC offset */
   time: IsoDateTime,
+  /** the IANA time zone the sample was recorded in (e.g. America/Denver), stored with each new sample */
+  timeZone: z.string().max(64).optional(),
   /** the local calendar date of `time` (index for "the day's samples") */
   localDate: LocalDate,
   crew: z.array(z.string().max(100)).default([]),
@@ -226,6 +244,10 @@ export const Settings = z.object({
   activityModel: z.enum(['auto', 'debye-huckel', 'extended-debye-huckel', 'davies', 'truesdell-jones']).default('auto'),
   conductanceFactor: Finite.min(5e-6).max(3e-5).default(1.5e-5),
   profileId: z.string().default('bankside-default'),
+  /** WQX Project ID the exports carry (≤ 35 characters) */
+  projectId: z.string().max(35).default(''),
+  /** WQX Organization ID the exports carry */
+  organizationId: z.string().max(120).default(''),
   units: z
     .object({
       alkalinity: z.enum(['mg/L CaCO3', 'meq/L', 'mg/L HCO3']).default('mg/L CaCO3'),
@@ -268,7 +290,7 @@ export const OutboxItem = z.object({
 export const ExportLogEntry = z.object({
   id: Id,
   at: IsoDateTime,
-  kind: z.enum(['csv-wide', 'csv-long', 'csv-calibrations', 'csv-titrations', 'geojson', 'backup', 'upload']),
+  kind: z.enum(['csv-wide', 'csv-long', 'csv-calibrations', 'csv-titrations', 'geojson', 'wqx-results', 'wqx-locations', 'backup', 'upload']),
   fileName: z.string().max(200),
   sampleIds: z.array(Id),
   engineVersion: z.string(),
@@ -288,5 +310,7 @@ export type Draft = z.infer<typeof Draft>;
 export type OutboxItem = z.infer<typeof OutboxItem>;
 export type ExportLogEntry = z.infer<typeof ExportLogEntry>;
 export type TitrationRecord = z.infer<typeof TitrationRecord>;
+export type MethodRef = z.infer<typeof MethodRef>;
+export type SampleFraction = z.infer<typeof SampleFraction>;
 
 export { DEFAULT_SETTINGS } from './defaults';

@@ -37,3 +37,23 @@ export function nextSeq(): number {
   lastSeq = Math.max(lastSeq + 1, Date.now() * 1000);
   return lastSeq;
 }
+
+/** The IANA time zone of this device (e.g. America/Denver), or undefined where the platform does not say. */
+export function currentTimeZone(): string | undefined {
+  try {
+    const z = Intl.DateTimeFormat().resolvedOptions().timeZone;
+    return z && z.length <= 64 ? z : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * The wall clock written in an ISO time with offset, read from the text itself: the sample's own
+ * local date, time and offset, never re-zoned to the viewer's time zone.
+ */
+export function wallClock(iso: string): { date: string; hhmm: string; hhmmss: string; offset: string } | undefined {
+  const m = /^(\d{4}-\d{2}-\d{2})T(\d{2}):(\d{2})(?::(\d{2}))?(?:\.\d+)?(Z|[+-]\d{2}:\d{2})$/.exec(iso);
+  if (!m) return undefined;
+  return { date: m[1]!, hhmm: `${m[2]}:${m[3]}`, hhmmss: `${m[2]}:${m[3]}:${m[4] ?? '00'}`, offset: m[5] === 'Z' ? '+00:00' : m[5]! };
+}

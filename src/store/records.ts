@@ -21,7 +21,7 @@ export function loadSchemas(): Promise<typeof import('../records/schema')> {
   return (schemas ??= import('../records/schema'));
 }
 import { diff } from '../records/diff';
-import { isoWithOffset, newId, nextSeq } from '../records/time';
+import { currentTimeZone, isoWithOffset, newId, nextSeq } from '../records/time';
 import { baseSampleCode, freeSampleCode } from '../records/sample-code';
 import { getDb, notifyChange } from './connection';
 import type { BanksideDB, Db } from './db';
@@ -156,6 +156,12 @@ export type SampleInputRecord = Omit<z.input<typeof import('../records/schema').
 
 export async function saveSample(sample: SampleInputRecord, by: string): Promise<Sample> {
   const withDate = { ...sample, localDate: sample.localDate ?? (typeof sample.time === 'string' ? sample.time.slice(0, 10) : undefined) };
+  // the IANA zone the sample was recorded in: given to a new sample from this device, kept through edits
+  if (withDate.timeZone === undefined) {
+    const existing = sample.id ? await getSample(sample.id) : undefined;
+    const zone = existing ? existing.timeZone : currentTimeZone();
+    if (zone) withDate.timeZone = zone;
+  }
   for (let attempt = 0; ; attempt++) {
     try {
       return await putWithRevision<Sample>('sample', { ...withDate, sampleCode: await codeFor(withDate) }, by);

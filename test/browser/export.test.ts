@@ -51,6 +51,36 @@ describe('getting the day to the office, offline', () => {
     await context.close();
   });
 
+  it('exports the day in WQX once the project ID is set, from a button that says WQX (360 px phone)', async () => {
+    const context = await browser.newContext({ viewport: { width: 360, height: 780 }, deviceScaleFactor: 2, hasTouch: true, isMobile: true });
+    const page = await context.newPage();
+    await page.goto(served.url);
+    await page.getByRole('button', { name: 'Load demo creek' }).click();
+    await page.waitForFunction(() => document.querySelectorAll('.sample-card').length === 3);
+    await page.goto(served.url + '#/send');
+    await page.getByRole('button', { name: 'WQX results CSV' }).click();
+    await page.getByText('WQX needs a Project ID: set it in Settings (Office).').waitFor();
+    await page.goto(served.url + '#/settings');
+    await page.getByLabel('WQX project ID').fill('WRENFOLD-2026');
+    await page.getByLabel('WQX organization ID').fill('BANKSIDE_DEMO');
+    await shot(page, 'settings-wqx-360');
+    await page.getByRole('button', { name: 'Save settings' }).click();
+    await page.getByText('Settings saved.').waitFor();
+    await page.goto(served.url + '#/send');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'WQX results CSV' }).click()]);
+    expect(download.suggestedFilename()).toMatch(/^bankside_\d{4}-\d{2}-\d{2}_wqx_results\.csv$/);
+    const { header, rows } = parseCsv(readFileSync((await download.path())!, 'utf8'));
+    expect(header.slice(0, 3)).toEqual(['Activity ID', 'Activity Type', 'Activity Media Name']);
+    expect(new Set(rows.map((r) => r['Project ID']))).toEqual(new Set(['WRENFOLD-2026']));
+    expect(new Set(rows.map((r) => r['Monitoring Location ID']))).toEqual(new Set(['WF-01', 'WF-02', 'WF-03']));
+    for (const r of rows) expect(r['Activity ID']!.length).toBeLessThanOrEqual(35);
+    const [loc] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'WQX monitoring locations CSV' }).click()]);
+    expect(parseCsv(readFileSync((await loc.path())!, 'utf8')).rows.map((r) => r['Monitoring Location ID']).sort()).toEqual(['WF-01', 'WF-02', 'WF-03']);
+    await page.getByRole('button', { name: 'WQX results CSV' }).scrollIntoViewIfNeeded();
+    await shot(page, 'send-wqx-360');
+    await context.close();
+  });
+
   it('uses the system share sheet where the browser has one', async () => {
     const context = await phoneContext(browser);
     await context.addInitScript(() => {

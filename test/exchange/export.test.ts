@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { demoRecords, DEMO_SITES } from '../../src/demo/scenario';
 import { Sample, Site, CalibrationEvent, DEFAULT_SETTINGS } from '../../src/records/schema';
-import { calibrationsCsv, derivedRows, longCsv, parseCsv, safeCell, titrationsCsv, toCsv, unsafeCell, WIDE_COLUMNS, wideCsv } from '../../src/exchange/csv';
+import { calibrationsCsv, derivedRows, LONG_HEADER, longCsv, parseCsv, safeCell, titrationsCsv, toCsv, unsafeCell, WIDE_COLUMNS, wideCsv } from '../../src/exchange/csv';
 import { samplesGeoJson, sitesGeoJson } from '../../src/exchange/geojson';
 import { deriveSample } from '../../src/records/derive';
 import { ENGINE_VERSION } from '../../src/chemistry';
@@ -99,7 +99,7 @@ describe('formula injection', () => {
 describe('long CSV, calibrations, titrations, GeoJSON', () => {
   it('long file: one row per value with UCUM units and origin', () => {
     const { header, rows } = parseCsv(longCsv(ctx));
-    expect(header).toEqual(['sample_id', 'sample_code', 'site_code', 'time_local', 'parameter', 'value', 'unit_ucum', 'origin', 'method', 'qualifier']);
+    expect(header).toEqual(LONG_HEADER);
     const first = rows.filter((r) => r.sample_id === samples[0]!.id);
     expect(first.find((r) => r.parameter === 'water_temperature')).toMatchObject({ unit_ucum: 'Cel', origin: 'field' });
     expect(first.find((r) => r.parameter === 'pH')).toMatchObject({ unit_ucum: '[pH]', value: '7.06' }) // median of 7.12, 7.08, 7.06, 7.05, 7.05;
@@ -107,13 +107,46 @@ describe('long CSV, calibrations, titrations, GeoJSON', () => {
     expect(first.find((r) => r.parameter === 'saturation_index_calcite')!.unit_ucum).toBe('1');
     for (const r of rows) expect(Number.isFinite(Number(r.value))).toBe(true);
   });
+  it('long file: a replicate is told apart by its QC type and parent, every row has its position, the calcite SI its band', () => {
+    const { rows } = parseCsv(longCsv(ctx));
+    const rep = rows.filter((r) => r.sample_id === 'demo-sample-0-0-rep');
+    expect(rep.length).toBeGreaterThan(10);
+    for (const r of rep) expect(r).toMatchObject({ qc_type: 'replicate', qc_parent_id: samples[0]!.id });
+    expect(rows.filter((r) => r.sample_id === samples[0]!.id).every((r) => r.qc_type === 'environmental')).toBe(true);
+    for (const r of rows) expect(r).toMatchObject({ datum: 'WGS84' });
+    expect(rows.every((r) => Number(r.latitude_deg) > 45 && Number(r.longitude_deg) < -110)).toBe(true);
+    const si = rows.filter((r) => r.parameter === 'saturation_index_calcite');
+    expect(si.length).toBe(samples.length);
+    for (const r of si) expect(Number(r.band_95pct_plus_minus)).toBeGreaterThan(0);
+    expect(rows.filter((r) => r.parameter !== 'saturation_index_calcite').every((r) => r.band_95pct_plus_minus === '')).toBe(true);
+    const ca = rows.find((r) => r.parameter === 'calcium')!;
+    expect(ca).toMatchObject({ sample_fraction: 'total', method: 'kit 3500-CA(B) (APHA)' });
+  });
   it('calibration events and titration points as their own files', () => {
     const c = parseCsv(calibrationsCsv(cals)).rows;
     expect(c).toHaveLength(9);
     expect(c.find((r) => r.parameter === 'pH')!.ph_buffers).toBe('7@-4.2mV/12C | 10.01@-173.1mV/12C | 4@162.9mV/12C');
+    // slope = (−173.1 − (−4.2)) / 3.01 = −56.11 mV/pH; Nernst at 12 °C = 56.58 mV/pH (CODATA constants) → 99.2 %;
+    // offset at pH 7 = −4.2 mV; the pH 4 buffer reads back through the line: 7 + (162.9 + 4.2)/−56.11 = 4.022 → 0.02
+    expect(c.find((r) => r.parameter === 'pH')).toMatchObject({ ph_slope_pct_nernst: '99.2', ph_offset_mV_at_pH7: '-4.2', deviation: '0.02', deviation_unit: 'pH' });
+    // SC check: (1402 − 1413) / 1413 = −0.78 % → −0.8
+    expect(c.find((r) => r.parameter === 'sc')).toMatchObject({ deviation: '-0.8', deviation_unit: '%' });
+    const doRow = c.find((r) => r.parameter === 'do')!;
+    expect(doRow.deviation_unit).toBe('mg/L');
+    expect(Math.abs(Number(doRow.deviation))).toBeLessThan(0.3);
     const t = parseCsv(titrationsCsv(samples)).rows;
     expect(t.length).toBe(30); // the titrated spring sample and its replicate, 15 points each
     expect(t[0]).toMatchObject({ point: '1', titrant_amount: '0', titrant_unit: 'counts', pH: '7.06' });
+  });
+  it('GeoJSON: NAD83 maps when its stated accuracy covers the NAD83–WGS84 shift; otherwise null geometry with a reason', () => {
+    const nad = (accuracyM: number | undefined, datum = 'NAD83') => Site.parse({ ...sites[0]!, id: `n${accuracyM}${datum}`, datum, accuracyM });
+    const g = JSON.parse(sitesGeoJson([nad(5), nad(0.5), nad(undefined), nad(5, 'NAD27'), nad(3, 'NAD83(2011)')]));
+    expect(g.features.map((f: { geometry: unknown }) => f.geometry !== null)).toEqual([true, false, false, false, true]);
+    expect(g.features[0].properties).toMatchObject({ datum: 'NAD83' });
+    expect(g.features[0].properties.no_geometry_reason).toBeUndefined();
+    expect(g.features[1].properties.no_geometry_reason).toMatch(/finer than the NAD83–WGS84 shift/);
+    expect(g.features[2].properties.no_geometry_reason).toMatch(/without a stated accuracy/);
+    expect(g.features[3].properties).toMatchObject({ datum: 'NAD27', no_geometry_reason: expect.stringMatching(/NAD27 is not WGS84-compatible/) });
   });
   it('GeoJSON (RFC 7946): longitude first, WGS84 only', () => {
     const g = JSON.parse(sitesGeoJson([...sites, Site.parse({ ...sites[0]!, id: 'nad', datum: 'NAD27' })]));

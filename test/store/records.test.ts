@@ -39,6 +39,16 @@ describe('samples: save, list by day, revisions', () => {
     expect(await listDays()).toEqual([{ date: '2026-06-15', count: 1 }, { date: '2026-06-14', count: 2 }]);
   });
 
+  it('stores the IANA time zone with each new sample and keeps it through an edit made elsewhere', async () => {
+    const zone = Intl.DateTimeFormat().resolvedOptions().timeZone;
+    const s = await saveSample(sampleAt('2026-06-14T09:30:00-06:00'), 'T. Mills');
+    expect(s.timeZone).toBe(zone);
+    const stored = { ...s, timeZone: 'America/Denver' };
+    await saveSample(stored, 'T. Mills');
+    const { timeZone: _dropped, ...edited } = { ...stored, remarks: 'edited on a laptop in another zone' };
+    expect((await saveSample(edited, 'J. Reyes')).timeZone).toBe('America/Denver');
+  });
+
   it('an edit appends a revision with who, when and exactly what changed', async () => {
     const s = await saveSample(sampleAt('2026-06-14T09:30:00-06:00'), 'T. Mills');
     const edited = structuredClone(s);

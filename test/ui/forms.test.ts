@@ -65,7 +65,9 @@ describe('sample form ↔ record', () => {
     expect(r.errors).toEqual({ 'pH.0': '“7.8x” is not a number. Use digits with one decimal point or comma.' });
     expect(r.record.field!.conductance!.values[0]!.value).toBeCloseTo(301, 9);
     expect(r.record.field!.pH).toBeUndefined();
-    expect(r.record.field!.kits).toEqual([{ analyte: 'calcium-hardness', value: 150, unit: 'mg/L CaCO3' }]);
+    expect(r.record.field!.kits).toEqual([{ analyte: 'calcium-hardness', value: 150, unit: 'mg/L CaCO3', fraction: 'total' }]);
+    // a kit run on filtered water records the dissolved fraction (WQX Result Sample Fraction)
+    expect(formToSample({ ...f, kitFiltered: true }).record.field!.kits![0]!.fraction).toBe('dissolved');
     expect(Sample.safeParse({ ...r.record, id: 'x', createdAt: f.time, updatedAt: f.time, localDate: '2026-06-14' }).success).toBe(true);
   });
   it('round-trips a stored sample through the form unchanged', () => {

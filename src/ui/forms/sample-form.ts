@@ -58,6 +58,8 @@ export interface SampleForm {
   kitAnalyte: 'calcium' | 'calcium-hardness';
   kitValue: string;
   kitUnit: 'mg/L' | 'mg/L CaCO3' | 'mmol/L';
+  /** the kit was run on filtered water (WQX fraction Dissolved; else Total); absent in older drafts */
+  kitFiltered?: boolean;
   totalHardness: string;
   ions: Record<IonKey, string>;
   remarks: string;
@@ -104,6 +106,7 @@ export function emptyForm(now = new Date(), defaults: FormDefaults = {}): Sample
     kitAnalyte: 'calcium',
     kitValue: '',
     kitUnit: 'mg/L',
+    kitFiltered: false,
     totalHardness: '',
     ions: Object.fromEntries(ION_FIELDS.map((f) => [f.key, ''])) as Record<IonKey, string>,
     remarks: '',
@@ -206,10 +209,10 @@ export function formToSample(form: SampleForm): FormResult {
   const kit = num('kitValue', form.kitValue, { ...RULES.kitValue, unit: form.kitUnit });
   if (kit !== undefined) {
     const analyte = form.kitAnalyte === 'calcium' && form.kitUnit === 'mg/L CaCO3' ? 'calcium-hardness' : form.kitAnalyte;
-    field.kits!.push({ analyte, value: kit, unit: form.kitUnit });
+    field.kits!.push({ analyte, value: kit, unit: form.kitUnit, fraction: form.kitFiltered ? 'dissolved' : 'total' });
   }
   const th = num('totalHardness', form.totalHardness, { ...RULES.kitValue, label: 'total hardness', unit: 'mg/L as CaCO₃' });
-  if (th !== undefined) field.kits!.push({ analyte: 'total-hardness', value: th, unit: 'mg/L CaCO3' });
+  if (th !== undefined) field.kits!.push({ analyte: 'total-hardness', value: th, unit: 'mg/L CaCO3', fraction: form.kitFiltered ? 'dissolved' : 'total' });
   for (const f of ION_FIELDS) {
     const v = num(`ions.${f.key}`, form.ions[f.key] ?? '', { ...RULES.ion, label: f.label.toLowerCase() });
     if (v !== undefined) (field.ions as Record<string, number>)[f.key] = v;
@@ -278,6 +281,7 @@ export function formFromSample(s: Sample): SampleForm {
     kitAnalyte: kit?.analyte === 'calcium-hardness' ? 'calcium-hardness' : 'calcium',
     kitValue: kit ? String(kit.value) : '',
     kitUnit: kit ? (kit.unit === 'meq/L' ? 'mmol/L' : kit.unit) : 'mg/L',
+    kitFiltered: (kit ?? th)?.fraction === 'dissolved',
     totalHardness: th ? String(th.value) : '',
     ions: Object.fromEntries(ION_FIELDS.map((x) => [x.key, fld.ions[x.key] !== undefined ? String(fld.ions[x.key]) : ''])) as Record<IonKey, string>,
     remarks: s.remarks,

@@ -332,6 +332,12 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
           </Fold>
 
           <Fold {...fold('ions')} title="More ions and lab values" extra={ionCount > 0 ? `${ionCount} entered` : undefined}>
+            <div class="choice-row">
+              <label class={form.kitFiltered ? 'choice-opt on' : 'choice-opt'}>
+                <input type="checkbox" checked={form.kitFiltered === true} onChange={() => update({ kitFiltered: !form.kitFiltered })} />
+                Kits run on filtered water (dissolved)
+              </label>
+            </div>
             <TextField id="totalHardness" label="Total hardness (kit)" unit="mg/L as CaCO₃" numeric value={form.totalHardness} error={e.totalHardness} onInput={(v) => update({ totalHardness: v })} hint="With calcium hardness, gives magnesium." />
             {ION_FIELDS.map((f) => (
               <TextField key={f.key} id={`ion-${f.key}`} label={f.label} unit={f.unit} numeric value={form.ions[f.key]} error={e[`ions.${f.key}`]} onInput={(v) => update({ ions: { ...form.ions, [f.key]: v } })} />

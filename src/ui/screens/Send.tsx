@@ -4,6 +4,7 @@ import { samplesGeoJson, sitesGeoJson } from '../../exchange/geojson';
 import { listExportLog, logExport } from '../../exchange/log';
 import { drainOutbox, enqueueUpload, listOutbox } from '../../exchange/outbox';
 import { shareOrDownload } from '../../exchange/share';
+import { wqxLocationsCsv, wqxResultsCsv } from '../../exchange/wqx';
 import type { ExportLogEntry, OutboxItem, Sample } from '../../records/schema';
 import { todayLocal } from '../../records/time';
 import { createBackup } from '../../store/backup';
@@ -68,6 +69,12 @@ export function SendScreen() {
         }
         case 'csv-titrations': file = { name: name('titrations', 'csv'), text: titrationsCsv(samples, { bom }), type: 'text/csv' }; break;
         case 'geojson': file = { name: name('samples', 'geojson'), text: samplesGeoJson(samples, allSites, settings), type: 'application/geo+json' }; break;
+        case 'wqx-results': file = { name: name('wqx_results', 'csv'), text: wqxResultsCsv(ctx, { bom }), type: 'text/csv' }; break;
+        case 'wqx-locations': {
+          const used = new Set(samples.map((s) => s.siteId));
+          file = { name: name('wqx_locations', 'csv'), text: wqxLocationsCsv(allSites.filter((s) => used.has(s.id)), { bom }), type: 'text/csv' };
+          break;
+        }
         default: return;
       }
       const outcome = await shareOrDownload(file.name, file.text, file.type);
@@ -112,6 +119,8 @@ export function SendScreen() {
         <button type="button" class="btn" onClick={() => run('csv-long')}>Values CSV (one row per value)</button>
         <button type="button" class="btn" onClick={() => run('csv-calibrations')}>Meter checks CSV</button>
         <button type="button" class="btn" onClick={() => run('csv-titrations')}>Titration points CSV</button>
+        <button type="button" class="btn" onClick={() => run('wqx-results')}>WQX results CSV</button>
+        <button type="button" class="btn" onClick={() => run('wqx-locations')}>WQX monitoring locations CSV</button>
         <button type="button" class="btn" onClick={() => run('geojson')}>Map file (GeoJSON)</button>
         <button type="button" class="btn" onClick={async () => shareOrDownload('bankside_sites.geojson', sitesGeoJson(await listSites()), 'application/geo+json')}>Sites map file</button>
       </div>

@@ -29,6 +29,7 @@ export function SettingsScreen() {
   const save = async () => {
     setErr('');
     if (!f.ok || f.value === undefined) return setErr(f.ok ? 'Enter the conductance factor.' : f.error);
+    if ((s.projectId ?? '').length > 35) return setErr('The WQX project ID holds at most 35 characters.');
     try {
       await saveSettings({ ...s, conductanceFactor: f.value });
       setMsg('Settings saved.');
@@ -61,6 +62,8 @@ export function SettingsScreen() {
         <option value="hPa">hPa</option><option value="kPa">kPa</option><option value="mmHg">mmHg</option>
       </SelectField>
       <h2>Office</h2>
+      <TextField id="projectId" label="WQX project ID" value={s.projectId ?? ''} onInput={(v) => setS({ ...s, projectId: v })} error={(s.projectId ?? '').length > 35 ? 'At most 35 characters (WQX).' : undefined} hint="Written in the samples CSV and required by the WQX export." />
+      <TextField id="organizationId" label="WQX organization ID" value={s.organizationId ?? ''} onInput={(v) => setS({ ...s, organizationId: v })} hint="Your organization's ID in WQX, written in the exports." />
       <TextField
         id="endpoint"
         label="Office upload address (HTTPS)"
