@@ -9,7 +9,7 @@ import { FIELD_METHODS, ION_METHODS, kitFraction, kitMethod, labFraction, labMet
 import type { KitResult, LabResult, MethodRef, Sample, SampleFraction, Settings, Site } from '../records/schema';
 import { baseSampleCode, freeSampleCode, SAMPLE_CODE_MAX } from '../records/sample-code';
 import { wallClock } from '../records/time';
-import { derivedRows, reported, toCsv, type Cell, type ExportContext } from './csv';
+import { derivedRows, ionicStrengthSource, reported, toCsv, type Cell, type ExportContext } from './csv';
 import { rounded, type RoundKey } from './rounding';
 
 export type WqxRow = Record<string, string | number>;
@@ -339,7 +339,7 @@ function computedResults(s: Sample, d: Derived): ResultSpec[] {
   const a = d.analysis;
   if (!a) return [];
   const out: ResultSpec[] = [];
-  const basis = `Bankside engine ${ENGINE_VERSION}, ${a.activityModel} activity model, ionic strength from ${a.ionicStrength.source}`;
+  const basis = `Bankside engine ${ENGINE_VERSION}, ${a.activityModel} activity model, ionic strength from ${ionicStrengthSource(d)}`;
   const push = (name: string, value: number | undefined, unit: string, comment: string, extra: Partial<ResultSpec> = {}) => {
     if (value !== undefined && Number.isFinite(value)) out.push({ name, value, unit, calculated: true, comment, ...extra });
   };
