@@ -28,9 +28,24 @@ const Meta = {
   demo: z.boolean().optional(),
 };
 
+/** One hand-over of the day's samples (chain of custody): who gave them, who took them, when, how cold. */
+export const CustodyTransfer = z.object({
+  id: Id,
+  relinquishedBy: z.string().min(1).max(100),
+  receivedBy: z.string().min(1).max(100),
+  time: IsoDateTime,
+  /** cooler (or temperature blank) at hand-over, °C */
+  coolerTempC: Finite.min(-30).max(60).optional(),
+  remarks: z.string().max(1000).default(''),
+});
+
 export const FieldDay = z.object({
   ...Meta,
   date: LocalDate,
+  /** the meters used this day: every new sample of the day links to them */
+  instrumentIds: z.array(Id).optional(),
+  /** chain-of-custody hand-overs of the day's samples, in order */
+  custody: z.array(CustodyTransfer).optional(),
   project: z.string().max(200).default(''),
   crew: z.array(z.string().max(100)).default([]),
   lead: z.string().max(100).optional(),
@@ -297,6 +312,7 @@ export const ExportLogEntry = z.object({
 });
 
 export type FieldDay = z.infer<typeof FieldDay>;
+export type CustodyTransfer = z.infer<typeof CustodyTransfer>;
 export type Site = z.infer<typeof Site>;
 export type Instrument = z.infer<typeof Instrument>;
 export type TimedValue = z.infer<typeof TimedValue>;

@@ -303,6 +303,16 @@ export async function listCalibrations(): Promise<CalibrationEvent[]> {
 
 export type FieldDayInput = Omit<z.input<typeof import('../records/schema').FieldDay>, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
 export const saveFieldDay = (d: FieldDayInput, by: string) => putWithRevision<FieldDay>('fieldDay', d, by);
+/** The field-day record of a date (its meters, its chain of custody), if one was made. */
+export async function getFieldDay(date: string): Promise<FieldDay | undefined> {
+  const all = await (await getDb()).getAllFromIndex('fieldDays', 'date', date);
+  return all.filter((d) => !d.deletedAt).sort((a, b) => a.createdAt.localeCompare(b.createdAt))[0];
+}
+/** Change the date's field-day record (made on first use), keeping whatever else it holds. */
+export async function updateFieldDay(date: string, patch: Partial<FieldDayInput>, by: string): Promise<FieldDay> {
+  const current = await getFieldDay(date);
+  return saveFieldDay({ ...(current ?? { date }), ...patch, date }, by);
+}
 
 // ---------------- settings ----------------
 

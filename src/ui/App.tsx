@@ -18,6 +18,8 @@ const ChecksScreen = lazyScreen(() => import('./screens/Checks').then((m) => m.C
 const SendScreen = lazyScreen(() => import('./screens/Send').then((m) => m.SendScreen));
 const SettingsScreen = lazyScreen(() => import('./screens/Settings').then((m) => m.SettingsScreen));
 const LabImport = lazyScreen(() => import('./screens/LabImport').then((m) => m.LabImport));
+const DaySummary = lazyScreen(() => import('./day/DaySummary').then((m) => m.DaySummary));
+const LabelsScreen = lazyScreen(() => import('./day/Labels').then((m) => m.LabelsScreen));
 const AboutScreen = lazyScreen(() => import('./screens/About').then((m) => m.AboutScreen));
 
 function titleOf(route: Route): string {
@@ -38,6 +40,8 @@ function Screen({ route }: { route: Route }) {
     case 'more': return <MoreScreen />;
     case 'settings': return <SettingsScreen />;
     case 'lab': return <LabImport />;
+    case 'day': return <DaySummary route={route} />;
+    case 'labels': return <LabelsScreen route={route} />;
     case 'cautions': return <CautionsScreen />;
     case 'about': return <AboutScreen />;
   }

@@ -20,6 +20,8 @@ export const EXTRA_PAGES = [
 export const DETAIL_PAGES = [
   { id: 'sample', title: 'Sample', parent: 'today' },
   { id: 'site', title: 'Site', parent: 'sites' },
+  { id: 'day', title: 'Day summary', parent: 'today' },
+  { id: 'labels', title: 'Bottle labels', parent: 'today' },
 ] as const;
 
 export type AreaId =

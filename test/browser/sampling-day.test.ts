@@ -3,6 +3,7 @@
 // invented demo scenario or made up here; QC limits come from the default method profile.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
+import { parseCsv } from '../../src/exchange/csv';
 import { launch, openControlled, serveDist, shot, type Served } from './helpers';
 import { seriousAxe } from './axe';
 import { readFileSync } from 'node:fs';
@@ -141,6 +142,63 @@ describe('QC that judges itself at the bank', () => {
     expect(await verdict.locator('li').allTextContents()).toEqual(['✓ SC 1.80 µS/cm in the blank, allowed up to 5 µS/cm.']);
     await verdict.evaluate((el) => el.scrollIntoView({ block: 'center' }));
     await shot(page, 'day-qc-blank-verdict-360');
+    await context.close();
+  });
+});
+
+describe('the day summary, chain of custody and labels', () => {
+  it('shows every sample with its ID, QC and meter checks, exports the chain of custody and prints labels with QR codes', async () => {
+    const { context, page } = await offlinePhone();
+    await tap(page.getByRole('button', { name: 'Load demo creek' }));
+    await page.waitForFunction(() => document.querySelectorAll('.sample-card').length === 3);
+    const codes = await page.locator('.sample-card .sample-code').allTextContents();
+    await tap(page.getByRole('link', { name: 'Day summary, custody and labels' }));
+    await page.waitForFunction(() => document.querySelectorAll('.day-row').length === 3);
+    expect(await page.locator('.day-row .sample-code').allTextContents()).toEqual(codes);
+    // the demo day has only its morning calibrations: the end-of-day check is still to do, and said so
+    await expect(page.locator('.end-checks li').allTextContents()).resolves.toEqual([
+      expect.stringMatching(/^✗ pH: no passing check after the last sample \(/),
+      expect.stringMatching(/^✗ conductance: no passing check after the last sample/),
+      expect.stringMatching(/^✗ oxygen: no passing check after the last sample/),
+    ]);
+    await page.getByRole('link', { name: 'Record the end-of-day check' }).waitFor();
+    await tap(page.getByLabel(/Sonde A/));
+    await page.waitForFunction(() => (document.querySelector('.day-meters input') as HTMLInputElement).checked);
+    await page.getByLabel('Relinquished by').fill('T. Mills');
+    await page.getByLabel('Received by').fill('Lab courier');
+    await page.getByLabel('Cooler temperature (°C)').fill('4,2');
+    await tap(page.getByRole('button', { name: 'Record hand-over now' }));
+    await page.locator('.custody-list li').getByText('Lab courier').waitFor();
+    await noOverflow(page, '.day-summary');
+    expect(await seriousAxe(page)).toEqual([]);
+    await page.evaluate(() => scrollTo(0, 0));
+    await shot(page, 'day-summary-top-360');
+    await page.locator('.custody').evaluate((el) => el.scrollIntoView({ block: 'start' }));
+    await shot(page, 'day-summary-custody-360');
+
+    const [coc] = await Promise.all([page.waitForEvent('download'), tap(page.getByRole('button', { name: 'Chain of custody CSV' }))]);
+    expect(coc.suggestedFilename()).toMatch(/^bankside_\d{4}-\d{2}-\d{2}_chain_of_custody\.csv$/);
+    const cocRows = parseCsv(readFileSync((await coc.path())!, 'utf8')).rows;
+    expect(cocRows.map((r) => r.sample_code).sort()).toEqual([...codes].sort());
+    for (const r of cocRows) expect([r.transfer, r.relinquished_by, r.received_by, r.cooler_temp_degC]).toEqual(['1', 'T. Mills', 'Lab courier', '4.2']);
+
+    const [summary] = await Promise.all([page.waitForEvent('download'), tap(page.getByRole('button', { name: 'Day summary CSV' }))]);
+    const sumRows = parseCsv(readFileSync((await summary.path())!, 'utf8')).rows;
+    expect(sumRows.map((r) => r.sample_code)).toEqual(codes);
+    for (const r of sumRows) expect(r.meter_check).toBe('within a passing check');
+
+    await tap(page.getByRole('link', { name: 'Bottle labels' }));
+    await page.waitForFunction(() => document.querySelectorAll('.label svg.qr').length === 3, null, { timeout: 10_000 });
+    const labels = await page.locator('.label').evaluateAll((els) => els.map((el) => ({ code: el.querySelector('.label-code')?.textContent, modules: Number(el.querySelector('svg.qr')?.getAttribute('data-modules')), dark: (el.querySelector('svg.qr path')?.getAttribute('d') ?? '').split('M').length - 1 })));
+    expect(labels.map((l) => l.code)).toEqual(codes);
+    for (const l of labels) {
+      // a 19-character ID in byte mode at level M needs version 2 (25 × 25 modules; ISO/IEC 18004 capacity table, from memory)
+      expect(l.modules).toBe(25);
+      expect(l.dark).toBeGreaterThan(150);
+    }
+    await noOverflow(page, '.labels-screen');
+    expect(await seriousAxe(page)).toEqual([]);
+    await shot(page, 'day-labels-360');
     await context.close();
   });
 });

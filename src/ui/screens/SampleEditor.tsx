@@ -25,6 +25,7 @@ import { ResultsPanel } from '../components/Results';
 import { StateBadge } from '../components/State';
 import { SampleCode } from '../components/SampleCode';
 import { ParentPicker, QcLiveVerdict } from '../day/QcSection';
+import { dayMeters } from '../day/DayMeters';
 import { TitrationPlot } from '../components/TitrationPlot';
 import { useLive, useProfile, useSettingsState } from '../data';
 import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm, type TimedRaw } from '../forms/sample-form';
@@ -175,7 +176,7 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
     if (need.length > 0) return;
     setSaving(true);
     try {
-      const rec = await saveSample({ ...parsed.record, profileId: profile.id, profileVersion: profile.version, ...(stored ? { createdAt: stored.createdAt, lab: stored.lab, instrumentIds: stored.instrumentIds, demo: stored.demo } : {}) }, settings.operator || 'field crew');
+      const rec = await saveSample({ ...parsed.record, profileId: profile.id, profileVersion: profile.version, ...(stored ? { createdAt: stored.createdAt, lab: stored.lab, instrumentIds: stored.instrumentIds, demo: stored.demo } : { instrumentIds: await dayMeters(parsed.record.time) }) }, settings.operator || 'field crew');
       dirty.current = false;
       await deleteDraft(draftId);
       go(`#/today?date=${rec.localDate}&saved=${rec.id}`);

@@ -54,6 +54,7 @@ export function TodayScreen({ route }: { route: Route }) {
       )}
       <a class="btn btn-primary btn-block" href="#/new">+ New sample</a>
       <DayGuide sites={sites.data ?? []} daySamples={list} isToday={isToday} />
+      {list.length > 0 && <a class="btn btn-block day-summary-link" href={`#/day?date=${date}`}>Day summary, custody and labels</a>}
       {list.length === 0 ? (
         <div class="empty">
           <p>No samples recorded {isToday ? 'today' : 'on this day'}.</p>
