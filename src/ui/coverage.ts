@@ -8,6 +8,9 @@ const PARAMS = [
   { key: 'do', has: (s: Sample) => !!s.field.do },
 ] as const;
 
+/** The checked parameters in the crew's words. */
+export const PARAM_WORDS: Record<string, string> = { pH: 'pH', sc: 'conductance', do: 'oxygen' };
+
 /** Parameters measured in the sample that have no passing check of their meter in the window. */
 export function uncoveredParameters(sample: Sample, calibrations: CalibrationEvent[], profile: MethodProfile = DEFAULT_PROFILE): Array<{ parameter: string; coverage: Coverage }> {
   const t = Date.parse(sample.time);

@@ -5,7 +5,7 @@ import { shareOrDownload } from '../../exchange/share';
 import { isoWithOffset, newId } from '../../records/time';
 import { getFieldDay, listCalibrations, listDay, listInstruments, listSites, updateFieldDay } from '../../store/records';
 import { parseDecimalLoose } from '../../records/numbers';
-import { uncoveredParameters } from '../coverage';
+import { PARAM_WORDS, uncoveredParameters } from '../coverage';
 import { useLive, useProfile, useSettings } from '../data';
 import { showDayLong, showMoment, showTime } from '../format';
 import { SampleCode } from '../components/SampleCode';
@@ -13,8 +13,6 @@ import { StateBadge } from '../components/State';
 import { DayMeters, endOfDayChecks, meterNames } from './DayMeters';
 import type { Route } from '../router';
 import { todayLocal } from '../../records/time';
-
-const PARAM_WORDS: Record<string, string> = { pH: 'pH', sc: 'conductance', do: 'oxygen' };
 
 /** The day on one page: every sample with its ID, state, warnings, QC and meter checks; custody; export and print. */
 export function DaySummary({ route }: { route: Route }) {

@@ -6,7 +6,7 @@ import { StateBadge } from '../components/State';
 import { SampleCode } from '../components/SampleCode';
 import { DayGuide } from '../day/DayGuide';
 import { useLive, useProfile, useSettings } from '../data';
-import { uncoveredParameters } from '../coverage';
+import { PARAM_WORDS, uncoveredParameters } from '../coverage';
 import type { Route } from '../router';
 import { go } from '../router';
 import { useMemo, useState } from 'preact/hooks';
@@ -19,8 +19,6 @@ function shiftDate(date: string, days: number): string {
   d.setDate(d.getDate() + days);
   return todayLocal(d);
 }
-
-const PARAM_WORDS: Record<string, string> = { pH: 'pH', sc: 'conductance', do: 'oxygen' };
 
 export function TodayScreen({ route }: { route: Route }) {
   const date = route.query.get('date') || todayLocal();
