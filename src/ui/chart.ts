@@ -5,21 +5,13 @@
 // scale. No hover is needed: the legend is drawn as plain HTML beside the chart.
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
+import { PCO2_RANGE, SI_RANGE, widen } from './chart-scale';
 
 export interface ChartPoint {
   t: number;
   si: number;
   band: number;
   logPco2: number | null;
-}
-
-/** Fixed SI scale, widened to the data (with a margin) only when a value or its band falls outside. */
-export const SI_RANGE: [number, number] = [-1, 1.5];
-/** log pCO₂ scale: the atmosphere (about −3.4) to a strongly degassing spring (−1). */
-export const PCO2_RANGE: [number, number] = [-3.6, -1];
-
-export function widen(base: [number, number], lo: number, hi: number, margin: number): [number, number] {
-  return [Math.min(base[0], Number.isFinite(lo) ? Math.floor((lo - margin) * 2) / 2 : base[0]), Math.max(base[1], Number.isFinite(hi) ? Math.ceil((hi + margin) * 2) / 2 : base[1])];
 }
 
 const dayFmt = new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short' });
