@@ -86,5 +86,7 @@ export default defineConfig({
     }),
   ],
   build: { target: 'es2022', sourcemap: false },
+  // the export worker is a module worker, so it can load the schemas on demand like the page
+  worker: { format: 'es' },
   preview: { port: 4173, strictPort: true, host: '127.0.0.1' },
 });

@@ -1,8 +1,9 @@
 // Hand a file to the system share sheet where the browser can (Web Share with files), else download.
 export type ShareOutcome = 'shared' | 'downloaded' | 'cancelled';
 
-export async function shareOrDownload(fileName: string, text: string, type: string): Promise<ShareOutcome> {
-  const file = new File([text], fileName, { type });
+/** `content` may be a Blob built from parts (big exports): it is handed over without copying into one string. */
+export async function shareOrDownload(fileName: string, content: string | Blob, type: string): Promise<ShareOutcome> {
+  const file = new File([content], fileName, { type });
   const nav = navigator as Navigator & { canShare?: (d: ShareData) => boolean };
   if (typeof nav.share === 'function' && typeof nav.canShare === 'function' && nav.canShare({ files: [file] })) {
     try {

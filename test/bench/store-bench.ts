@@ -2,7 +2,13 @@
 import { getDb, listDay, resetDb, saveSample } from '../../src/store';
 import { Sample } from '../../src/records/schema';
 import { demoRecords } from '../../src/demo/scenario';
-import { wideCsv } from '../../src/exchange/csv';
+import { longCsv, wideCsv } from '../../src/exchange/csv';
+import { startExport } from '../../src/exchange/export-job';
+import type { StreamedExportKind } from '../../src/exchange/export-stream';
+import { listSamplesBetween, listSites } from '../../src/store/records';
+import { loadDemo } from '../../src/demo/load';
+import { DEFAULT_PROFILE } from '../../src/chemistry';
+import { generatedDay } from '../exchange/generated-day';
 import { DEFAULT_SETTINGS } from '../../src/records/defaults';
 import { derivedCache } from '../../src/records/derived-cache';
 
@@ -33,13 +39,58 @@ async function seed(n: number): Promise<string> {
   return busiest;
 }
 
-async function run(n: number) {
+async function emptyDb(): Promise<void> {
   await resetDb();
   await new Promise<void>((res, rej) => {
     const r = indexedDB.deleteDatabase('bankside');
     r.onsuccess = () => res();
     r.onerror = () => rej(r.error);
   });
+}
+
+/** Samples or values CSV of the dates from..to, written in the export worker (as the Send screen does). */
+async function workerExport(kind: StreamedExportKind, from: string, to: string): Promise<{ file: Uint8Array; ms: number; bytes: number; longestTaskMs: number }> {
+  let longest = 0;
+  const obs = new PerformanceObserver((l) => { for (const e of l.getEntries()) longest = Math.max(longest, e.duration); });
+  obs.observe({ type: 'longtask' });
+  const t0 = performance.now();
+  const out = await startExport({ kind, selection: { scope: 'dates', from, to }, settings: DEFAULT_SETTINGS, profile: DEFAULT_PROFILE, bom: true }).result;
+  const ms = performance.now() - t0;
+  await new Promise((r) => setTimeout(r, 50));
+  obs.disconnect();
+  if (out.status !== 'done') throw new Error('export did not finish');
+  // the file's bytes (BOM included) are read only when small enough to hand back for comparison
+  return { file: out.blob.size < 50e6 ? new Uint8Array(await out.blob.arrayBuffer()) : new Uint8Array(), ms, bytes: out.blob.size, longestTaskMs: longest };
+}
+
+/** The same export written on the page in one piece and in the worker in chunks, from the same store. */
+async function compareExports(what: 'demo' | number, kind: 'csv-wide' | 'csv-long') {
+  await emptyDb();
+  let date: string;
+  if (what === 'demo') {
+    await loadDemo(new Date('2026-06-14T12:00:00'));
+    date = '2026-06-14';
+  } else {
+    date = '2025-08-20';
+    const day = generatedDay(what, date);
+    const db = await getDb();
+    const tx = db.transaction(['samples', 'sites'], 'readwrite');
+    for (const s of day.sites) void tx.objectStore('sites').put(s);
+    for (const s of day.samples) void tx.objectStore('samples').put(s);
+    await tx.done;
+  }
+  derivedCache.clear();
+  const ctx = { samples: await listSamplesBetween(date, date), sites: await listSites(), settings: DEFAULT_SETTINGS, profile: DEFAULT_PROFILE };
+  // the page's file as the download would hold it: UTF-8 bytes
+  const page = new TextEncoder().encode(kind === 'csv-wide' ? wideCsv(ctx, { bom: true }) : longCsv(ctx, { bom: true }));
+  const worker = (await workerExport(kind, date, date)).file;
+  let firstDiff = -1;
+  for (let i = 0; i < Math.max(page.length, worker.length); i++) if (page[i] !== worker[i]) { firstDiff = i; break; }
+  return { samples: ctx.samples.length, pageLength: page.length, workerLength: worker.length, identical: firstDiff === -1, firstDiff };
+}
+
+async function run(n: number) {
+  await emptyDb();
   const t0 = performance.now();
   const day = await seed(n);
   const seedMs = performance.now() - t0;
@@ -71,9 +122,13 @@ async function run(n: number) {
   const exportWarmMs = performance.now() - w0;
   if (again !== csv) throw new Error('warm export differs from cold export');
   derivedCache.clear();
+  // the values CSV of every stored sample, in the worker: time, bytes and the page's longest task
+  const worker = n >= 50_000 ? await workerExport('csv-long', '2024-01-01', day) : null;
   return {
+    workerValuesMs: worker?.ms, workerValuesBytes: worker?.bytes, workerLongestTaskMs: worker?.longestTaskMs,
     exportMs, exportWarmMs, n, seedMs, saveP95: quantile(saves, 0.95), saveMedian: quantile(saves, 0.5), listDayMedian: quantile(lists, 0.5), listDayMax: lists[lists.length - 1] };
 }
 
 (window as unknown as { runStoreBench: typeof run }).runStoreBench = run;
+(window as unknown as { compareExports: typeof compareExports }).compareExports = compareExports;
 (window as unknown as { benchReady: boolean }).benchReady = true;

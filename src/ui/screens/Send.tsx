@@ -1,14 +1,16 @@
 import { useState } from 'preact/hooks';
-import { calibrationsCsv, longCsv, titrationsCsv, wideCsv } from '../../exchange/csv';
-import { samplesGeoJson, sitesGeoJson } from '../../exchange/geojson';
+import { sitesGeoJson } from '../../exchange/geojson';
+import { startExport, type ExportJob } from '../../exchange/export-job';
+import type { StreamedExportKind } from '../../exchange/export-stream';
+import { selectSamples, type Selection } from '../../exchange/selection';
 import { listExportLog, logExport } from '../../exchange/log';
 import { drainOutbox, enqueueUpload, listOutbox } from '../../exchange/outbox';
 import { shareOrDownload } from '../../exchange/share';
 import { wqxLocationsCsv, wqxResultsCsv } from '../../exchange/wqx';
-import type { ExportLogEntry, OutboxItem, Sample } from '../../records/schema';
+import type { ExportLogEntry, OutboxItem } from '../../records/schema';
 import { todayLocal } from '../../records/time';
 import { createBackup } from '../../store/backup';
-import { listCalibrations, listSamplesBetween, listSamplesForSite, listSites } from '../../store/records';
+import { listSites } from '../../store/records';
 import { Choice, DateField, SelectField } from '../components/Field';
 import { showMoment } from '../format';
 import { useLive, useProfile, useSettings } from '../data';
@@ -41,45 +43,51 @@ export function SendScreen() {
   const [bom, setBom] = useState(true);
   const [msg, setMsg] = useState('');
   const [err, setErr] = useState('');
+  const [job, setJob] = useState<{ job: ExportJob; done: number; total: number } | null>(null);
 
-  const pick = async (): Promise<Sample[]> => {
-    if (scope === 'site') return siteId ? listSamplesForSite(siteId) : [];
-    return listSamplesBetween(from, scope === 'day' ? from : to);
+  const selection = (): Selection => (scope === 'site' ? { scope: 'site', siteId } : { scope: 'dates', from, to: scope === 'day' ? from : to });
+  /** Exports are written in a worker, chunk by chunk, so the screen never freezes; they can be cancelled. */
+  const exportFile = async (kind: StreamedExportKind, withBom: boolean) => {
+    const j = startExport({ kind, selection: selection(), settings, profile, bom: withBom }, (done, total) => setJob({ job: j, done, total }));
+    setJob({ job: j, done: 0, total: 0 });
+    try {
+      return await j.result;
+    } finally {
+      setJob(null);
+    }
   };
   const label = scope === 'site' ? (sites.data ?? []).find((s) => s.id === siteId)?.code ?? 'site' : scope === 'day' ? from : `${from}_to_${to}`;
 
-  const run = async (kind: ExportLogEntry['kind']) => {
+  const run = async (kind: StreamedExportKind | 'wqx-results' | 'wqx-locations') => {
     setErr('');
     setMsg('');
     try {
-      const samples = await pick();
-      if (samples.length === 0) return setErr('No samples in that selection.');
-      const allSites = await listSites();
-      const ctx = { samples, sites: allSites, settings, profile };
-      const name = (suffix: string, ext: string) => `bankside_${label}_${suffix}.${ext}`;
-      let file: { name: string; text: string; type: string };
-      switch (kind) {
-        case 'csv-wide': file = { name: name('samples', 'csv'), text: wideCsv(ctx, { bom }), type: 'text/csv' }; break;
-        case 'csv-long': file = { name: name('values', 'csv'), text: longCsv(ctx, { bom }), type: 'text/csv' }; break;
-        case 'csv-calibrations': {
-          const ids = new Set(samples.map((s) => s.localDate));
-          const cals = (await listCalibrations()).filter((c) => ids.has(c.localDate));
-          file = { name: name('meter_checks', 'csv'), text: calibrationsCsv(cals, { bom }), type: 'text/csv' };
-          break;
-        }
-        case 'csv-titrations': file = { name: name('titrations', 'csv'), text: titrationsCsv(samples, { bom }), type: 'text/csv' }; break;
-        case 'geojson': file = { name: name('samples', 'geojson'), text: samplesGeoJson(samples, allSites, settings), type: 'application/geo+json' }; break;
-        case 'wqx-results': file = { name: name('wqx_results', 'csv'), text: wqxResultsCsv(ctx, { bom }), type: 'text/csv' }; break;
-        case 'wqx-locations': {
-          const used = new Set(samples.map((s) => s.siteId));
-          file = { name: name('wqx_locations', 'csv'), text: wqxLocationsCsv(allSites.filter((s) => used.has(s.id)), { bom }), type: 'text/csv' };
-          break;
-        }
-        default: return;
+      if (kind === 'wqx-results' || kind === 'wqx-locations') {
+        // WQX files are written on the page in one piece (not yet in the export worker)
+        const samples = await selectSamples(selection());
+        if (samples.length === 0) return setErr('No samples in that selection.');
+        const allSites = await listSites();
+        const used = new Set(samples.map((x) => x.siteId));
+        const fileName = `bankside_${label}_${kind === 'wqx-results' ? 'wqx_results' : 'wqx_locations'}.csv`;
+        const text = kind === 'wqx-results' ? wqxResultsCsv({ samples, sites: allSites, settings, profile }, { bom }) : wqxLocationsCsv(allSites.filter((x) => used.has(x.id)), { bom });
+        const outcome = await shareOrDownload(fileName, text, 'text/csv');
+        if (outcome !== 'cancelled') await logExport(kind, fileName, samples.map((x) => x.id));
+        return setMsg(outcome === 'shared' ? `Shared ${fileName}.` : outcome === 'downloaded' ? `Saved ${fileName} to downloads.` : 'Cancelled.');
       }
-      const outcome = await shareOrDownload(file.name, file.text, file.type);
-      if (outcome !== 'cancelled') await logExport(kind, file.name, samples.map((s) => s.id));
-      setMsg(outcome === 'shared' ? `Shared ${file.name}.` : outcome === 'downloaded' ? `Saved ${file.name} to downloads.` : 'Cancelled.');
+      const out = await exportFile(kind, kind === 'geojson' ? false : bom);
+      if (out.status === 'cancelled') return setMsg('Export cancelled: no file was made.');
+      if (out.sampleIds.length === 0) return setErr('No samples in that selection.');
+      const [suffix, ext, type] = ({
+        'csv-wide': ['samples', 'csv', 'text/csv'],
+        'csv-long': ['values', 'csv', 'text/csv'],
+        'csv-calibrations': ['meter_checks', 'csv', 'text/csv'],
+        'csv-titrations': ['titrations', 'csv', 'text/csv'],
+        geojson: ['samples', 'geojson', 'application/geo+json'],
+      } as const)[kind];
+      const fileName = `bankside_${label}_${suffix}.${ext}`;
+      const outcome = await shareOrDownload(fileName, out.blob, type);
+      if (outcome !== 'cancelled') await logExport(kind, fileName, out.sampleIds);
+      setMsg(outcome === 'shared' ? `Shared ${fileName}.` : outcome === 'downloaded' ? `Saved ${fileName} to downloads.` : 'Cancelled.');
     } catch (e) {
       setErr(e instanceof Error ? e.message : String(e));
     }
@@ -87,15 +95,20 @@ export function SendScreen() {
 
   const queue = async () => {
     setErr('');
-    const samples = await pick();
-    if (samples.length === 0) return setErr('No samples in that selection.');
-    const ctx = { samples, sites: await listSites(), settings, profile };
-    const fileName = `bankside_${label}_samples.csv`;
-    await enqueueUpload({ fileName, contentType: 'text/csv', body: wideCsv(ctx), sampleIds: samples.map((s) => s.id) });
-    await logExport('upload', fileName, samples.map((s) => s.id));
-    setMsg(settings.office.endpoint ? 'Queued for the office; it goes as soon as there is signal.' : 'Queued. Set the office address in Settings to send it.');
-    void requestBackgroundSync();
-    if (settings.office.endpoint) void drainOutbox({ office: settings.office, force: true });
+    setMsg('');
+    try {
+      const out = await exportFile('csv-wide', false);
+      if (out.status === 'cancelled') return setMsg('Cancelled: nothing was queued.');
+      if (out.sampleIds.length === 0) return setErr('No samples in that selection.');
+      const fileName = `bankside_${label}_samples.csv`;
+      await enqueueUpload({ fileName, contentType: 'text/csv', body: await out.blob.text(), sampleIds: out.sampleIds });
+      await logExport('upload', fileName, out.sampleIds);
+      setMsg(settings.office.endpoint ? 'Queued for the office; it goes as soon as there is signal.' : 'Queued. Set the office address in Settings to send it.');
+      void requestBackgroundSync();
+      if (settings.office.endpoint) void drainOutbox({ office: settings.office, force: true });
+    } catch (e) {
+      setErr(e instanceof Error ? e.message : String(e));
+    }
   };
 
   return (
@@ -114,14 +127,21 @@ export function SendScreen() {
         </SelectField>
       )}
       <label class="check-line"><input type="checkbox" checked={bom} onChange={() => setBom(!bom)} /> Mark files for spreadsheets (UTF-8 BOM)</label>
+      {job && (
+        <div class="export-progress" role="status">
+          <label for="export-progress">{job.total > 0 ? `Writing the file: ${job.done.toLocaleString()} of ${job.total.toLocaleString()} samples` : 'Reading the samples…'}</label>
+          <progress id="export-progress" max={job.total || 1} value={job.total ? job.done : undefined} />
+          <button type="button" class="btn" onClick={() => job.job.cancel()}>Cancel export</button>
+        </div>
+      )}
       <div class="export-buttons">
-        <button type="button" class="btn btn-primary" onClick={() => run('csv-wide')}>Samples CSV (one row each)</button>
-        <button type="button" class="btn" onClick={() => run('csv-long')}>Values CSV (one row per value)</button>
-        <button type="button" class="btn" onClick={() => run('csv-calibrations')}>Meter checks CSV</button>
-        <button type="button" class="btn" onClick={() => run('csv-titrations')}>Titration points CSV</button>
-        <button type="button" class="btn" onClick={() => run('wqx-results')}>WQX results CSV</button>
-        <button type="button" class="btn" onClick={() => run('wqx-locations')}>WQX monitoring locations CSV</button>
-        <button type="button" class="btn" onClick={() => run('geojson')}>Map file (GeoJSON)</button>
+        <button type="button" class="btn btn-primary" disabled={!!job} onClick={() => run('csv-wide')}>Samples CSV (one row each)</button>
+        <button type="button" class="btn" disabled={!!job} onClick={() => run('csv-long')}>Values CSV (one row per value)</button>
+        <button type="button" class="btn" disabled={!!job} onClick={() => run('csv-calibrations')}>Meter checks CSV</button>
+        <button type="button" class="btn" disabled={!!job} onClick={() => run('csv-titrations')}>Titration points CSV</button>
+        <button type="button" class="btn" disabled={!!job} onClick={() => run('wqx-results')}>WQX results CSV</button>
+        <button type="button" class="btn" disabled={!!job} onClick={() => run('wqx-locations')}>WQX monitoring locations CSV</button>
+        <button type="button" class="btn" disabled={!!job} onClick={() => run('geojson')}>Map file (GeoJSON)</button>
         <button type="button" class="btn" onClick={async () => shareOrDownload('bankside_sites.geojson', sitesGeoJson(await listSites()), 'application/geo+json')}>Sites map file</button>
       </div>
       {err && <p class="field-error" role="alert">{err}</p>}
@@ -130,7 +150,7 @@ export function SendScreen() {
       <h2>Upload to the office</h2>
       <p class="muted">{settings.office.endpoint ? `To ${settings.office.endpoint}` : 'No office address yet: set it in Settings.'}</p>
       <div class="row2">
-        <button type="button" class="btn btn-primary" onClick={queue}>Queue selection for upload</button>
+        <button type="button" class="btn btn-primary" disabled={!!job} onClick={queue}>Queue selection for upload</button>
         <button type="button" class="btn" onClick={async () => { const r = await drainOutbox({ office: settings.office, force: true }); setMsg(`Sent ${r.sent}; ${r.queued} still queued; ${r.failed} refused.`); }}>Send now</button>
       </div>
       {(outbox.data ?? []).length === 0 ? <p class="muted">Nothing waiting to be sent.</p> : (
