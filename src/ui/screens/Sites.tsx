@@ -5,6 +5,8 @@ import type { Site } from '../../records/schema';
 import { getSite, listSamplesForSite, listSites, saveSite, toStoreError } from '../../store/records';
 import { Choice, TextField } from '../components/Field';
 import { StateBadge } from '../components/State';
+import { Windowed } from '../components/Windowed';
+import { decimateByTime } from '../decimate';
 import { useLive, useProfile, useSettings } from '../data';
 import { parseDecimal } from '../forms/parse';
 import { SiteImport } from '../day/SiteImport';
@@ -160,30 +162,38 @@ export function SiteDetail({ siteId }: { siteId: string }) {
   // the site's own SC → I factor once it has three full analyses (issue 12); the generic one before
   const siteFactor = useMemo(() => siteFactorsFrom(samples.data ?? [], settings)[siteId], [samples.data, settings, siteId]);
   const siteSettings = useMemo(() => (siteFactor ? { ...settings, siteFactors: { [siteId]: siteFactor } } : settings), [settings, siteFactor, siteId]);
-  const rows = (samples.data ?? []).map((s) => ({ s, d: derivedFor(s, siteSettings, profile) }));
+  const list = samples.data ?? [];
   const chartRef = useRef<HTMLDivElement>(null);
   const [chartError, setChartError] = useState('');
   useEffect(() => {
     const el = chartRef.current;
-    const pts = rows.filter((r) => r.d.analysis?.saturationIndex.calcite !== undefined);
-    if (!el || pts.length === 0) return;
+    if (!el || list.length === 0) return;
     let plot: { destroy(): void } | null = null;
     let cancelled = false;
-    import('../chart').then(({ siteChart }) => {
+    const width = Math.min(el.clientWidth || 320, 720);
+    (async () => {
+      // decimate first (about two samples per pixel column), then derive only those, a slice at a time
+      const picked = decimateByTime(list, (x) => Date.parse(x.time), width);
+      const pts = [];
+      for (let i = 0; i < picked.length; i += 100) {
+        for (const x of picked.slice(i, i + 100)) {
+          const a = derivedFor(x, siteSettings, profile).analysis;
+          if (a?.saturationIndex.calcite !== undefined) pts.push({ t: Date.parse(x.time) / 1000, si: a.saturationIndex.calcite, band: a.calciteSiUncertainty ?? 0, logPco2: a.logPco2 ?? null });
+        }
+        await new Promise((r) => setTimeout(r, 0));
+        if (cancelled) return;
+      }
+      if (pts.length === 0) return;
+      const { siteChart } = await import('../chart');
       if (cancelled) return;
       el.innerHTML = '';
-      plot = siteChart(el, pts.map((r) => ({
-        t: Date.parse(r.s.time) / 1000,
-        si: r.d.analysis!.saturationIndex.calcite!,
-        band: r.d.analysis!.calciteSiUncertainty ?? 0,
-        logPco2: r.d.analysis!.logPco2 ?? null,
-      })), Math.min(el.clientWidth || 320, 720));
-    }).catch((e) => setChartError(`Chart unavailable: ${e instanceof Error ? e.message : String(e)}`));
+      plot = siteChart(el, pts, width);
+    })().catch((e) => setChartError(`Chart unavailable: ${e instanceof Error ? e.message : String(e)}`));
     return () => {
       cancelled = true;
       plot?.destroy();
     };
-  }, [samples.data, siteSettings]);
+  }, [samples.data, siteSettings, profile]);
   if (!site.data) return <p class="muted">{site.error || 'Opening…'}</p>;
   const s = site.data;
   return (
@@ -205,8 +215,10 @@ export function SiteDetail({ siteId }: { siteId: string }) {
       </ul>
       {chartError && <p class="field-error">{chartError}</p>}
       <h2>Samples at this site</h2>
-      <ul class="cards row-cards" aria-label="Samples at this site">
-        {rows.map(({ s: x, d }) => (
+      {/* only the cards on screen are rendered (and derived) once the site has many samples */}
+      <Windowed class="cards row-cards" aria-label="Samples at this site" items={list} rowHeight={112} windowFrom={150} row={(x) => {
+        const d = derivedFor(x, siteSettings, profile);
+        return (
           <li key={x.id}>
             <a class="card" href={`#/sample/${encodeURIComponent(x.id)}`}>
               <span class="card-title">{showDateTime(x.time)}</span>
@@ -217,8 +229,8 @@ export function SiteDetail({ siteId }: { siteId: string }) {
               </span>
             </a>
           </li>
-        ))}
-      </ul>
+        );
+      }} />
     </section>
   );
 }

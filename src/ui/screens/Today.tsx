@@ -9,7 +9,8 @@ import { useLive, useProfile, useSettings } from '../data';
 import { PARAM_WORDS, uncoveredParameters } from '../coverage';
 import type { Route } from '../router';
 import { go } from '../router';
-import { useMemo, useState } from 'preact/hooks';
+import { useState } from 'preact/hooks';
+import { Windowed } from '../components/Windowed';
 import { Icon } from '../components/Icon';
 import { showDayLong, showTime } from '../format';
 import { splitWarnings } from '../warning-kinds';
@@ -30,11 +31,6 @@ export function TodayScreen({ route }: { route: Route }) {
   const [busy, setBusy] = useState('');
   const siteById = new Map((sites.data ?? []).map((s) => [s.id, s]));
   const list = samples.data ?? [];
-  // Derive each sample once per change of data, settings or profile, not on every re-render.
-  const rows = useMemo(
-    () => list.map((s) => ({ s, d: derivedFor(s, settings, profile), uncovered: uncoveredParameters(s, cals.data ?? [], profile) })),
-    [list, settings, profile, cals.data],
-  );
   const deleted = route.query.get('deleted');
   const isToday = date === todayLocal();
   return (
@@ -66,8 +62,11 @@ export function TodayScreen({ route }: { route: Route }) {
           )}
         </div>
       ) : (
-        <ul class="cards" aria-label="Samples of the day">
-          {rows.map(({ s, d, uncovered }) => {
+        // Derived results come from the cache (once per sample revision); a long day renders only the
+        // cards on screen.
+        <Windowed class="cards" aria-label="Samples of the day" items={list} rowHeight={210} windowFrom={100} row={(s) => {
+            const d = derivedFor(s, settings, profile);
+            const uncovered = uncoveredParameters(s, cals.data ?? [], profile);
             const a = d.analysis;
             const site = siteById.get(s.siteId);
             const nWarn = splitWarnings(d.warnings).action.length + uncovered.length;
@@ -93,8 +92,7 @@ export function TodayScreen({ route }: { route: Route }) {
                 </a>
               </li>
             );
-          })}
-        </ul>
+          }} />
       )}
     </section>
   );
