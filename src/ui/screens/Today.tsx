@@ -64,7 +64,7 @@ export function TodayScreen({ route }: { route: Route }) {
       ) : (
         // Derived results come from the cache (once per sample revision); a long day renders only the
         // cards on screen.
-        <Windowed class="cards" aria-label="Samples of the day" items={list} rowHeight={210} windowFrom={100} row={(s) => {
+        <Windowed class="cards" aria-label="Samples of the day" items={list} rowHeight={340} windowFrom={100} row={(s) => {
             const d = derivedFor(s, settings, profile);
             const uncovered = uncoveredParameters(s, cals.data ?? [], profile);
             const a = d.analysis;
