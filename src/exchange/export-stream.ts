@@ -4,6 +4,7 @@
 import { calibrationsCsv, longCsv, titrationsCsv, wideCsv, type ExportContext } from './csv';
 import { samplesGeoJson } from './geojson';
 import type { CalibrationEvent } from '../records/schema';
+import { siteFactorsFrom } from '../records/site-factor';
 
 export type StreamedExportKind = 'csv-wide' | 'csv-long' | 'csv-titrations' | 'csv-calibrations' | 'geojson';
 
@@ -38,7 +39,12 @@ function withoutHeader(csv: string): string {
 export function* exportParts(input: StreamInput, chunk = CHUNK_SAMPLES): Generator<ExportPart> {
   const { kind, samples } = input;
   const total = samples.length;
-  const ctx: ExportContext = { samples, sites: input.sites, settings: input.settings, ...(input.profile ? { profile: input.profile } : {}) };
+  // each site's own conductance factor comes from the whole selection (as the one-piece writers do), not from a slice
+  const settings = kind === 'csv-wide' || kind === 'csv-long' ? { ...input.settings, siteFactors: input.settings.siteFactors ?? siteFactorsFrom(samples, input.settings) } : input.settings;
+  // a QC parent's code is looked up in the whole selection too (a replicate's parent may sit in an earlier slice)
+  const codes = new Map(samples.map((s) => [s.id, s.sampleCode]));
+  const codeOf = (id: string) => codes.get(id) ?? input.codeOf?.(id);
+  const ctx: ExportContext = { samples, sites: input.sites, settings, codeOf, ...(input.profile ? { profile: input.profile } : {}) };
   if (kind === 'csv-calibrations') {
     yield { text: calibrationsCsv(input.calibrations ?? [], { bom: input.bom ?? false }), done: total, total };
     return;

@@ -12,7 +12,8 @@ import { generatedDay } from './generated-day';
 
 const T = '2026-06-14T12:00:00-06:00';
 const demo = demoRecords(new Date('2026-06-14T12:00:00'));
-const demoSamples = demo.samples.map((s) => Sample.parse({ ...s, createdAt: T, updatedAt: T, localDate: s.time.slice(0, 10) }));
+// readable codes as the store gives them, so a replicate's qc_parent_code must be found across chunks
+const demoSamples = demo.samples.map((s, i) => Sample.parse({ ...s, sampleCode: `DEMO-${i}`, createdAt: T, updatedAt: T, localDate: s.time.slice(0, 10) }));
 const demoSites = DEMO_SITES.map((s) => Site.parse({ ...s, createdAt: T, updatedAt: T }));
 const demoCals = demo.calibrations.map((c) => CalibrationEvent.parse({ ...c, createdAt: T, updatedAt: T, localDate: c.time.slice(0, 10) }));
 
@@ -26,6 +27,13 @@ const joined = (input: StreamInput, chunk?: number) => {
 
 describe('chunked export = one-piece export, byte for byte', () => {
   const ctx = { samples: demoSamples, sites: demoSites, settings: DEFAULT_SETTINGS };
+  it('the demo holds a replicate whose parent is in another chunk of 2', () => {
+    const rep = demoSamples.findIndex((s) => s.qc.type === 'replicate');
+    const parent = demoSamples.findIndex((s) => s.id === demoSamples[rep]?.qc.parentId);
+    expect(rep).toBeGreaterThanOrEqual(0);
+    expect(Math.floor(rep / 2)).not.toBe(Math.floor(parent / 2));
+    expect(wideCsv(ctx)).toContain(`,DEMO-${parent},`);
+  });
   it.each([true, false])('demo day, every file kind, chunks of 2 samples (BOM %s)', (bom) => {
     expect(joined({ ...ctx, kind: 'csv-wide', bom }, 2)).toBe(wideCsv(ctx, { bom }));
     expect(joined({ ...ctx, kind: 'csv-long', bom }, 2)).toBe(longCsv(ctx, { bom }));
