@@ -184,6 +184,8 @@ export interface ExportContext {
   /** engine settings (each site's own conductance factor is computed from `samples` unless given), and the WQX IDs */
   settings: DeriveSettings & Partial<Pick<Settings, 'projectId' | 'organizationId'>>;
   profile?: MethodProfile;
+  /** a QC parent outside `samples` (the export worker writes a selection in slices and looks parents up in all of it) */
+  parentOf?: (sampleId: string) => Sample | undefined;
   /** the readable code of a sample outside `samples` (a QC parent from another day) */
   codeOf?: (sampleId: string) => string | undefined;
 }
@@ -203,7 +205,9 @@ export function derivedRows(ctx: ExportContext): Row[] {
   const byId = new Map(rows.map((r) => [r.s.id, r]));
   const profile = ctx.profile ?? DEFAULT_PROFILE;
   for (const r of rows) {
-    const parent = r.s.qc.parentId ? byId.get(r.s.qc.parentId) : undefined;
+    const pid = r.s.qc.parentId;
+    const outside = pid && !byId.has(pid) ? ctx.parentOf?.(pid) : undefined;
+    const parent = pid ? byId.get(pid) ?? (outside ? { s: outside, d: derivedFor(outside, settings, ctx.profile) } : undefined) : undefined;
     if (r.s.qc.parentId) r.parentCode = parent?.s.sampleCode ?? ctx.codeOf?.(r.s.qc.parentId);
     r.qc = qcVerdictFor(r.s, r.d, parent ? { derived: parent.d } : undefined, profile);
   }

@@ -41,10 +41,10 @@ export function* exportParts(input: StreamInput, chunk = CHUNK_SAMPLES): Generat
   const total = samples.length;
   // each site's own conductance factor comes from the whole selection (as the one-piece writers do), not from a slice
   const settings = kind === 'csv-wide' || kind === 'csv-long' ? { ...input.settings, siteFactors: input.settings.siteFactors ?? siteFactorsFrom(samples, input.settings) } : input.settings;
-  // a QC parent's code is looked up in the whole selection too (a replicate's parent may sit in an earlier slice)
-  const codes = new Map(samples.map((s) => [s.id, s.sampleCode]));
-  const codeOf = (id: string) => codes.get(id) ?? input.codeOf?.(id);
-  const ctx: ExportContext = { samples, sites: input.sites, settings, codeOf, ...(input.profile ? { profile: input.profile } : {}) };
+  // a QC sample's parent is looked up in the whole selection too (it may sit in another slice)
+  const byId = new Map(samples.map((s) => [s.id, s]));
+  const parentOf = (id: string) => byId.get(id) ?? input.parentOf?.(id);
+  const ctx: ExportContext = { samples, sites: input.sites, settings, parentOf, ...(input.codeOf ? { codeOf: input.codeOf } : {}), ...(input.profile ? { profile: input.profile } : {}) };
   if (kind === 'csv-calibrations') {
     yield { text: calibrationsCsv(input.calibrations ?? [], { bom: input.bom ?? false }), done: total, total };
     return;
