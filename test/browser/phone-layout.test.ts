@@ -28,7 +28,7 @@ async function phone(width: number): Promise<{ context: BrowserContext; page: Pa
   const context = await browser.newContext({ viewport: { width, height: 740 }, deviceScaleFactor: 2, hasTouch: true, isMobile: true });
   const page = await context.newPage();
   // every lazy screen once while online, so its chunk is cached for the offline walk
-  await readyOffline(page, served.url, ['#/new', '#/sites', '#/site/demo-site-wf01', '#/checks', '#/send', '#/lab', '#/settings', '#/about']);
+  await readyOffline(page, served.url, ['#/new', '#/day', '#/labels', '#/sites', '#/site/demo-site-wf01', '#/checks', '#/send', '#/lab', '#/settings', '#/about']);
   return { context, page };
 }
 
@@ -111,6 +111,8 @@ const SCREENS: Screen[] = [
       await page.getByRole('button', { name: 'Save changes' }).waitFor();
     },
   },
+  { name: 'day-summary', hash: '#/day' },
+  { name: 'labels', hash: '#/labels' },
   { name: 'sites', hash: '#/sites' },
   {
     name: 'site',
