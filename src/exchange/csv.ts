@@ -10,6 +10,7 @@ import { siteFactorsFrom } from '../records/site-factor';
 import { kitFraction, kitMethod } from '../records/methods';
 import type { CalibrationEvent, Sample, Settings, Site } from '../records/schema';
 import { rounded, type RoundKey } from './rounding';
+import { utcIsoOrUndefined } from '../records/time';
 
 export type Cell = string | number | boolean | null | undefined;
 
@@ -92,7 +93,7 @@ export const WIDE_COLUMNS: Col[] = [
   { h: 'datum', get: ({ site }) => site?.datum },
   num('position_accuracy_m', 'metres', ({ site }) => site?.accuracyM),
   { h: 'time_local', get: ({ s }) => s.time },
-  { h: 'time_utc', get: ({ s }) => new Date(s.time).toISOString() },
+  { h: 'time_utc', get: ({ s }) => utcIsoOrUndefined(s.time) },
   { h: 'time_zone', get: ({ s }) => s.timeZone },
   { h: 'local_date', get: ({ s }) => s.localDate },
   { h: 'crew', get: ({ s }) => s.crew.join('; ') },
@@ -188,6 +189,8 @@ export interface ExportContext {
   parentOf?: (sampleId: string) => Sample | undefined;
   /** the readable code of a sample outside `samples` (a QC parent from another day) */
   codeOf?: (sampleId: string) => string | undefined;
+  /** the profile version each sample was judged under (verdicts belong to it); `profile` when unknown */
+  profileOf?: (s: Sample) => MethodProfile | undefined;
 }
 
 /** The ionic-strength source as exported: a site's own conductance factor is named, with its analyses. */
@@ -201,7 +204,7 @@ export function ionicStrengthSource(d: Derived): string | undefined {
 export function derivedRows(ctx: ExportContext): Row[] {
   const siteById = new Map(ctx.sites.map((s) => [s.id, s]));
   const settings = { ...ctx.settings, siteFactors: ctx.settings.siteFactors ?? siteFactorsFrom(ctx.samples, ctx.settings) };
-  const rows: Row[] = ctx.samples.map((s) => ({ s, site: siteById.get(s.siteId), d: derivedFor(s, settings, ctx.profile) }));
+  const rows: Row[] = ctx.samples.map((s) => ({ s, site: siteById.get(s.siteId), d: derivedFor(s, settings, ctx.profileOf?.(s) ?? ctx.profile) }));
   const byId = new Map(rows.map((r) => [r.s.id, r]));
   const profile = ctx.profile ?? DEFAULT_PROFILE;
   for (const r of rows) {
@@ -209,7 +212,7 @@ export function derivedRows(ctx: ExportContext): Row[] {
     const outside = pid && !byId.has(pid) ? ctx.parentOf?.(pid) : undefined;
     const parent = pid ? byId.get(pid) ?? (outside ? { s: outside, d: derivedFor(outside, settings, ctx.profile) } : undefined) : undefined;
     if (r.s.qc.parentId) r.parentCode = parent?.s.sampleCode ?? ctx.codeOf?.(r.s.qc.parentId);
-    r.qc = qcVerdictFor(r.s, r.d, parent ? { derived: parent.d } : undefined, profile);
+    r.qc = qcVerdictFor(r.s, r.d, parent ? { derived: parent.d } : undefined, ctx.profileOf?.(r.s) ?? profile);
   }
   return rows;
 }

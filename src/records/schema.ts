@@ -2,18 +2,24 @@
 // stored as entered (raw EC with its temperature and α, every repeated reading with its time, every
 // titration point); computed indicators are derived from them by the engine and never stored as truth.
 import { z } from 'zod';
+import { isoTimeProblem, localDateProblem } from './time';
 
 // The app runs under a Content-Security-Policy without 'unsafe-eval': zod's fast path probes
 // `new Function`, which the browser reports as a policy violation. The plain path is used instead.
 z.config({ jitless: true });
 
-/** ISO 8601 date-time with an explicit UTC offset (or Z). */
-export const IsoDateTime = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,3})?)?(Z|[+-]\d{2}:\d{2})$/, {
-    error: 'Time must be ISO 8601 with a UTC offset, e.g. 2026-06-14T09:30:00-06:00',
-  });
-export const LocalDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { error: 'Date must be YYYY-MM-DD' });
+/**
+ * ISO 8601 date-time with an explicit UTC offset (or Z) that is a real instant: hour 25, minute 61
+ * or 30 February are refused with the reason (records/time.ts isoTimeProblem, the one rule).
+ */
+export const IsoDateTime = z.string().check((ctx) => {
+  const problem = isoTimeProblem(ctx.value);
+  if (problem) ctx.issues.push({ code: 'custom', message: problem, input: ctx.value });
+});
+export const LocalDate = z.string().check((ctx) => {
+  const problem = localDateProblem(ctx.value);
+  if (problem) ctx.issues.push({ code: 'custom', message: problem, input: ctx.value });
+});
 const Id = z.string().min(1).max(100);
 const Finite = z.number().refine(Number.isFinite, { error: 'Must be a finite number' });
 
@@ -282,6 +288,8 @@ export const Draft = z.object({
   kind: z.enum(['sample', 'calibration', 'site']),
   /** the record being edited, if any */
   targetId: Id.optional(),
+  /** the stored revision the edit started from (a save over a newer one asks first) */
+  baseRevision: z.number().int().min(1).optional(),
   form: z.record(z.string(), z.unknown()),
   updatedAt: IsoDateTime,
 });

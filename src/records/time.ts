@@ -57,3 +57,48 @@ export function wallClock(iso: string): { date: string; hhmm: string; hhmmss: st
   if (!m) return undefined;
   return { date: m[1]!, hhmm: `${m[2]}:${m[3]}`, hhmmss: `${m[2]}:${m[3]}:${m[4] ?? '00'}`, offset: m[5] === 'Z' ? '+00:00' : m[5]! };
 }
+
+const ISO_SHAPE = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2})(?:\.\d{1,3})?)?(Z|([+-])(\d{2}):(\d{2}))$/;
+const DATE_SHAPE = /^(\d{4})-(\d{2})-(\d{2})$/;
+
+function dayProblem(y: number, m: number, d: number): string | undefined {
+  if (m < 1 || m > 12) return `month ${m} does not exist (01–12)`;
+  const last = new Date(Date.UTC(y, m, 0)).getUTCDate();
+  if (d < 1 || d > last) return `day ${d} does not exist in that month (01–${last})`;
+  return undefined;
+}
+
+/**
+ * Why an ISO 8601 time with offset is impossible, or undefined when it is a real instant.
+ * The shape alone is not enough: hour 25, minute 61, 30 February or an offset beyond ±14:00 are
+ * refused here, so every stored time converts to UTC and every export can write it.
+ */
+export function isoTimeProblem(s: unknown): string | undefined {
+  if (typeof s !== 'string') return 'a time is needed';
+  const m = ISO_SHAPE.exec(s);
+  if (!m) return 'Time must be ISO 8601 with a UTC offset, e.g. 2026-06-14T09:30:00-06:00';
+  const [, y, mo, d, h, mi, sec, , , oh, om] = m;
+  const day = dayProblem(Number(y), Number(mo), Number(d));
+  if (day) return `Impossible time: ${day}`;
+  if (Number(h) > 23) return `Impossible time: hour ${h} does not exist (00–23)`;
+  if (Number(mi) > 59) return `Impossible time: minute ${mi} does not exist (00–59)`;
+  if (sec !== undefined && Number(sec) > 59) return `Impossible time: second ${sec} does not exist (00–59)`;
+  if (oh !== undefined && (Number(oh) > 14 || Number(om) > 59 || (Number(oh) === 14 && Number(om) > 0))) return `Impossible time: UTC offset ${oh}:${om} is beyond ±14:00`;
+  if (!Number.isFinite(Date.parse(s))) return 'Impossible time: it does not convert to a date';
+  return undefined;
+}
+
+/** Why a YYYY-MM-DD calendar date is impossible, or undefined. */
+export function localDateProblem(s: unknown): string | undefined {
+  if (typeof s !== 'string') return 'a date is needed';
+  const m = DATE_SHAPE.exec(s);
+  if (!m) return 'Date must be YYYY-MM-DD';
+  const day = dayProblem(Number(m[1]), Number(m[2]), Number(m[3]));
+  return day ? `Impossible date: ${day}` : undefined;
+}
+
+/** The UTC instant of a stored time as ISO text, or undefined when it cannot be read (never throws). */
+export function utcIsoOrUndefined(s: string): string | undefined {
+  const ms = Date.parse(s);
+  return Number.isFinite(ms) ? new Date(ms).toISOString() : undefined;
+}

@@ -15,10 +15,13 @@ import type {
 import { DEFAULT_SETTINGS } from '../records/defaults';
 import { DEFAULT_PROFILE, profileProblems, type MethodProfile } from '../chemistry';
 
-/** The schemas load on the first write, not with the first screen (they are most of the bundle). */
-let schemas: Promise<typeof import('../records/schema')> | null = null;
-export function loadSchemas(): Promise<typeof import('../records/schema')> {
-  return (schemas ??= import('../records/schema'));
+/**
+ * The schemas and the shared validation rule (records/validate.ts) load on the first write, not
+ * with the first screen (they are most of the bundle).
+ */
+let schemas: Promise<typeof import('../records/validate')> | null = null;
+export function loadSchemas(): Promise<typeof import('../records/validate')> {
+  return (schemas ??= import('../records/validate'));
 }
 import { diff } from '../records/diff';
 import { currentTimeZone, isoWithOffset, newId, nextSeq } from '../records/time';
@@ -28,11 +31,13 @@ import type { BanksideDB, Db } from './db';
 
 export class StoreError extends Error {
   constructor(
-    readonly kind: 'quota' | 'invalid' | 'not-found' | 'closed' | 'other',
+    readonly kind: 'quota' | 'invalid' | 'not-found' | 'closed' | 'conflict' | 'other',
     message: string,
     override readonly cause?: unknown,
     /** for 'invalid': field path → message */
     readonly fields?: Record<string, string>,
+    /** for 'conflict': the newer stored record the save would have overwritten */
+    readonly current?: unknown,
   ) {
     super(message);
     this.name = 'StoreError';
@@ -67,14 +72,10 @@ export function toStoreError(e: unknown): StoreError {
   return new StoreError('other', `Could not save: ${e instanceof Error ? e.message : String(e)}`, e);
 }
 
-function parseOrThrow<T>(schema: z.ZodType<T>, value: unknown, what: string): T {
-  const r = schema.safeParse(value);
-  if (!r.success) {
-    const fields: Record<string, string> = {};
-    for (const issue of r.error.issues) fields[issue.path.join('.') || '(record)'] = issue.message;
-    throw new StoreError('invalid', `The ${what} has invalid values: ${Object.entries(fields).map(([k, v]) => `${k}: ${v}`).join('; ')}`, r.error, fields);
-  }
-  return r.data;
+function parseOrThrow<T>(V: Awaited<ReturnType<typeof loadSchemas>>, schema: z.ZodType<T>, value: unknown, what: string): T {
+  const r = V.validateWith(schema, value, what);
+  if (!r.ok) throw new StoreError('invalid', r.message, undefined, r.fields);
+  return r.value;
 }
 
 type Entity = RevisionT['entity'];
@@ -99,11 +100,25 @@ function revisionOf(entity: Entity, entityId: string, at: string, by: string, ac
   return { id: newId('rev'), entity, entityId, at, seq: nextSeq(), by, action, changes };
 }
 
+export interface PutOptions {
+  action?: RevisionT['action'];
+  /**
+   * The revision the edit started from. When the stored record has moved on (another tab or a
+   * restore saved it meanwhile) the save is refused with StoreError('conflict') carrying the newer
+   * record, so the caller can ask the crew: keep mine / keep theirs / keep both. Never overwritten silently.
+   */
+  expectedRevision?: number;
+  /** a draft to delete in the same transaction as the save (a kill just after Save leaves no duplicate) */
+  draftId?: string;
+  /** a note kept in the revision, e.g. "restored from backup of 2026-06-14" */
+  note?: string;
+}
+
 /**
  * Create or update an entity, appending a revision with the changed fields. Returns the stored value.
- * The revision and the record are written in one transaction: both or neither.
+ * The revision and the record (and the draft it came from) are written in one transaction: all or none.
  */
-async function putWithRevision<T extends WithMeta>(entity: Entity, input: unknown, by: string, action?: RevisionT['action'], dbArg?: Db): Promise<T> {
+async function putWithRevision<T extends WithMeta>(entity: Entity, input: unknown, by: string, opts: PutOptions = {}, dbArg?: Db): Promise<T> {
   const storeName = STORE_OF[entity];
   const now = isoWithOffset();
   const raw = { ...(input as Record<string, unknown>) };
@@ -114,20 +129,33 @@ async function putWithRevision<T extends WithMeta>(entity: Entity, input: unknow
   const S = await loadSchemas();
   const SCHEMA_OF = { samples: S.Sample, sites: S.Site, calibrations: S.CalibrationEvent, instruments: S.Instrument, fieldDays: S.FieldDay } as const;
   try {
-    const tx = db.transaction([storeName, 'revisions'], 'readwrite');
+    const stores: Array<EntityStore | 'revisions' | 'drafts'> = [storeName, 'revisions'];
+    if (opts.draftId) stores.push('drafts');
+    const tx = db.transaction(stores, 'readwrite');
     tx.done.catch(() => undefined); // a failed write aborts the transaction: the error that matters is thrown below
     const store = tx.objectStore(storeName);
     const before = (await store.get(raw.id as string)) as T | undefined;
+    if (before && opts.expectedRevision !== undefined && (before.revision ?? 1) !== opts.expectedRevision) {
+      throw new StoreError(
+        'conflict',
+        `This ${entity} was changed elsewhere (another tab or a restore) since you opened it: it is now at revision ${before.revision ?? 1}, you started from ${opts.expectedRevision}. Nothing was overwritten.`,
+        undefined,
+        undefined,
+        before,
+      );
+    }
     if (before) {
       raw.createdAt = before.createdAt;
       if (entity === 'sample') raw.revision = (before.revision ?? 1) + 1;
     }
-    const value = parseOrThrow(SCHEMA_OF[storeName] as unknown as z.ZodType<T>, raw, entity);
+    const value = parseOrThrow(S, SCHEMA_OF[storeName] as unknown as z.ZodType<T>, raw, entity);
     const changes = before
       ? diff(before, value).filter((c) => c.path !== 'updatedAt' && c.path !== 'revision')
       : [{ path: '', from: null, to: 'created' }];
+    if (opts.note) changes.unshift({ path: '(note)', from: null, to: opts.note });
     await store.put(value as never);
-    await tx.objectStore('revisions').put(S.Revision.parse(revisionOf(entity, value.id, now, by, action ?? (before ? 'update' : 'create'), changes)));
+    await tx.objectStore('revisions').put(S.Revision.parse(revisionOf(entity, value.id, now, by, opts.action ?? (before ? 'update' : 'create'), changes)));
+    if (opts.draftId) await tx.objectStore('drafts').delete(opts.draftId);
     await tx.done;
     notifyChange({ store: storeName, ids: [value.id] });
     return value;
@@ -143,7 +171,7 @@ async function setDeleted(entity: Entity, id: string, deleted: boolean, by: stri
   const next: Record<string, unknown> = { ...current };
   if (deleted) next.deletedAt = isoWithOffset();
   else delete next.deletedAt;
-  await putWithRevision(entity, next, by, deleted ? 'delete' : 'restore', db);
+  await putWithRevision(entity, next, by, { action: deleted ? 'delete' : 'restore' }, db);
 }
 
 // ---------------- samples ----------------
@@ -154,7 +182,7 @@ export type SampleInputRecord = Omit<z.input<typeof import('../records/schema').
   localDate?: string;
 };
 
-export async function saveSample(sample: SampleInputRecord, by: string): Promise<Sample> {
+export async function saveSample(sample: SampleInputRecord, by: string, opts: PutOptions = {}): Promise<Sample> {
   const withDate = { ...sample, localDate: sample.localDate ?? (typeof sample.time === 'string' ? sample.time.slice(0, 10) : undefined) };
   // the IANA zone the sample was recorded in: given to a new sample from this device, kept through edits
   if (withDate.timeZone === undefined) {
@@ -164,7 +192,7 @@ export async function saveSample(sample: SampleInputRecord, by: string): Promise
   }
   for (let attempt = 0; ; attempt++) {
     try {
-      return await putWithRevision<Sample>('sample', { ...withDate, sampleCode: await codeFor(withDate) }, by);
+      return await putWithRevision<Sample>('sample', { ...withDate, sampleCode: await codeFor(withDate) }, by, opts);
     } catch (e) {
       // another tab took the same code between our look-up and our write: look again, once
       const constraint = e instanceof StoreError && (e.cause as { name?: string } | undefined)?.name === 'ConstraintError';
@@ -209,7 +237,7 @@ export async function addLabResults(additions: ReadonlyArray<{ sampleId: string;
       const before = await tx.objectStore('samples').get(sampleId);
       if (!before) throw new StoreError('not-found', `Sample ${sampleId} is not on this phone: nothing was stored.`);
       if (before.deletedAt) throw new StoreError('invalid', `Sample ${before.sampleCode ?? sampleId} was deleted: restore it before adding lab values. Nothing was stored.`);
-      const value = parseOrThrow(S.Sample, { ...before, lab: [...before.lab, ...lab], updatedAt: now, revision: (before.revision ?? 1) + 1 }, 'sample');
+      const value = parseOrThrow(S, S.Sample, { ...before, lab: [...before.lab, ...lab], updatedAt: now, revision: (before.revision ?? 1) + 1 }, 'sample');
       await tx.objectStore('samples').put(value);
       const changes = diff(before, value).filter((c) => c.path !== 'updatedAt' && c.path !== 'revision');
       await tx.objectStore('revisions').put(S.Revision.parse(revisionOf('sample', sampleId, now, by, 'import', changes)));
@@ -322,7 +350,8 @@ export async function getSettings(): Promise<Settings> {
 }
 
 export async function saveSettings(next: z.input<typeof import('../records/schema').Settings>): Promise<Settings> {
-  const value = parseOrThrow((await loadSchemas()).Settings, next, 'settings');
+  const V = await loadSchemas();
+  const value = parseOrThrow(V, V.Settings, next, 'settings');
   try {
     await (await getDb()).put('settings', value);
   } catch (e) {
@@ -335,7 +364,8 @@ export async function saveSettings(next: z.input<typeof import('../records/schem
 // ---------------- drafts ----------------
 
 export async function putDraft(draft: Omit<z.input<typeof import('../records/schema').Draft>, 'updatedAt'>): Promise<void> {
-  const value = parseOrThrow((await loadSchemas()).Draft, { ...draft, updatedAt: isoWithOffset() }, 'draft');
+  const V = await loadSchemas();
+  const value = parseOrThrow(V, V.Draft, { ...draft, updatedAt: isoWithOffset() }, 'draft');
   try {
     await (await getDb()).put('drafts', value);
   } catch (e) {
@@ -343,6 +373,31 @@ export async function putDraft(draft: Omit<z.input<typeof import('../records/sch
   }
 }
 export const getDraft = async (id: string) => (await getDb()).get('drafts', id);
+
+/**
+ * A draft left by a tab that is gone: one under `prefix` (e.g. "draft:sample:new") whose tab
+ * suffix is not among `liveTabs`, the newest first. It is moved to `ownId` in one transaction, so
+ * two tabs never adopt the same one and nothing typed is lost.
+ */
+export async function adoptOrphanDraft(prefix: string, ownId: string, liveTabs: Set<string>): Promise<Draft | undefined> {
+  const db = await getDb();
+  const tx = db.transaction('drafts', 'readwrite');
+  const range = IDBKeyRange.bound(prefix, `${prefix}:\uffff`);
+  const candidates = (await tx.store.getAll(range)).filter((d) => {
+    if (d.id === ownId) return false;
+    if (d.id === prefix) return true; // a draft from before drafts were kept per tab
+    const tab = d.id.slice(prefix.length + 1).split(':')[0] ?? '';
+    return !liveTabs.has(tab);
+  });
+  candidates.sort((a, b) => (a.updatedAt < b.updatedAt ? 1 : -1));
+  const pick = candidates[0];
+  if (pick) {
+    await tx.store.put({ ...pick, id: ownId });
+    await tx.store.delete(pick.id);
+  }
+  await tx.done;
+  return pick ? { ...pick, id: ownId } : undefined;
+}
 export const deleteDraft = async (id: string) => (await getDb()).delete('drafts', id);
 export const listDrafts = async () => (await getDb()).getAll('drafts');
 
@@ -378,12 +433,21 @@ export async function removeDemo(): Promise<number> {
 
 // ---------------- method profiles ----------------
 
-/** Store a profile version (id + version is the key: earlier versions stay for the records that used them). */
+/**
+ * Store a profile version (id + version is the key: earlier versions stay for the records that used
+ * them). A stored version is immutable: saving different thresholds under an existing id and version
+ * is refused (save them as the next version); the built-in default cannot be overwritten either.
+ */
 export async function saveProfile(profile: MethodProfile): Promise<MethodProfile> {
   const problems = profileProblems(profile);
   if (problems.length > 0) throw new StoreError('invalid', `The profile has problems: ${problems.join(' ')}`);
+  const db = await getDb();
+  const existing = profile.id === DEFAULT_PROFILE.id && profile.version === DEFAULT_PROFILE.version ? DEFAULT_PROFILE : await db.get('profiles', [profile.id, profile.version]);
+  if (existing && diff(existing, profile).length > 0) {
+    throw new StoreError('invalid', `Profile ${profile.id} version ${profile.version} is already stored and records may have been judged under it: save the changes as version ${profile.version + 1}.`);
+  }
   try {
-    await (await getDb()).put('profiles', structuredClone(profile));
+    await db.put('profiles', structuredClone(profile));
   } catch (e) {
     throw toStoreError(e);
   }
@@ -402,4 +466,36 @@ export async function listProfiles(): Promise<MethodProfile[]> {
 /** The active profile by id (its newest version); the default when unknown. */
 export async function getActiveProfile(id: string): Promise<MethodProfile> {
   return (await listProfiles()).find((p) => p.id === id) ?? DEFAULT_PROFILE;
+}
+
+/** One exact profile version (the default's built-in version included), or undefined when not stored. */
+export async function getProfileVersion(id: string, version: number): Promise<MethodProfile | undefined> {
+  if (id === DEFAULT_PROFILE.id && version === DEFAULT_PROFILE.version) return DEFAULT_PROFILE;
+  return (await getDb()).get('profiles', [id, version]);
+}
+
+/**
+ * Every stored profile version, as a lookup: the version a record was judged under. Verdicts belong
+ * to that version; a newer profile judges a record only after an explicit re-judge (see rejudgeSample).
+ */
+export async function profileLookup(): Promise<(ref: { profileId: string; profileVersion: number }) => MethodProfile | undefined> {
+  const all = await (await getDb()).getAll('profiles');
+  const byKey = new Map(all.map((p) => [`${p.id}@${p.version}`, p]));
+  byKey.set(`${DEFAULT_PROFILE.id}@${DEFAULT_PROFILE.version}`, DEFAULT_PROFILE);
+  return (ref) => byKey.get(`${ref.profileId}@${ref.profileVersion}`);
+}
+
+/** Judge a sample under another profile version, explicitly, with a revision saying so. */
+export async function rejudgeSample(id: string, profile: MethodProfile, by: string): Promise<Sample> {
+  const db = await getDb();
+  const current = await db.get('samples', id);
+  if (!current) throw new StoreError('not-found', `No sample ${id}.`);
+  if (!(await getProfileVersion(profile.id, profile.version))) await saveProfile(profile);
+  return putWithRevision<Sample>(
+    'sample',
+    { ...current, profileId: profile.id, profileVersion: profile.version },
+    by,
+    { expectedRevision: current.revision, note: `re-judged under ${profile.name} v${profile.version} (was ${current.profileId} v${current.profileVersion})` },
+    db,
+  );
 }

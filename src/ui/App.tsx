@@ -10,6 +10,7 @@ import { TodayScreen } from './screens/Today';
 import { MoreScreen } from './screens/More';
 import { CautionsScreen } from './screens/Cautions';
 import { lazyScreen } from './lazy';
+import { NotFound } from './components/NotFound';
 
 const SampleEditor = lazyScreen(() => import('./screens/SampleEditor').then((m) => m.SampleEditor));
 const SitesScreen = lazyScreen(() => import('./screens/Sites').then((m) => m.SitesScreen));
@@ -44,6 +45,7 @@ function Screen({ route }: { route: Route }) {
     case 'labels': return <LabelsScreen route={route} />;
     case 'cautions': return <CautionsScreen />;
     case 'about': return <AboutScreen />;
+    case 'not-found': return <NotFound what="This link does not lead to a page of Bankside." detail={`The link “${route.param}” is malformed or incomplete.`} />;
   }
 }
 

@@ -1,7 +1,7 @@
 // Small hooks that read the store and stay fresh when records change (in this tab or another).
 import { useCallback, useEffect, useState } from 'preact/hooks';
 import { onChange } from '../store/connection';
-import { getActiveProfile, getSettings } from '../store/records';
+import { getActiveProfile, getSettings, profileLookup } from '../store/records';
 import { DEFAULT_PROFILE, type MethodProfile } from '../chemistry';
 import { DEFAULT_SETTINGS } from '../records/defaults';
 import type { Settings } from '../records/schema';
@@ -45,4 +45,14 @@ export function useProfile(): MethodProfile {
   const settings = useSettings();
   const { data } = useLive(() => getActiveProfile(settings.profileId), [settings.profileId], ['profiles', 'settings']);
   return data ?? DEFAULT_PROFILE;
+}
+
+/**
+ * The profile each record was judged under (its own id and version), falling back to the active
+ * profile only for a version this phone does not hold. Editing the profile never re-judges old records.
+ */
+export function useProfileOf(): (ref: { profileId: string; profileVersion: number }) => MethodProfile {
+  const active = useProfile();
+  const { data } = useLive(profileLookup, [], ['profiles']);
+  return useCallback((ref) => data?.(ref) ?? active, [data, active]);
 }

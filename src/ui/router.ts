@@ -15,6 +15,7 @@ export const EXTRA_PAGES = [
   { id: 'lab', title: 'Lab results' },
   { id: 'cautions', title: 'Cautions' },
   { id: 'about', title: 'Methods and sources' },
+  { id: 'not-found', title: 'Link not found' },
 ] as const;
 
 export const DETAIL_PAGES = [
@@ -39,12 +40,21 @@ export interface Route {
 
 const ALL_IDS = new Set<string>([...AREAS, ...EXTRA_PAGES, ...DETAIL_PAGES].map((a) => a.id));
 
+/**
+ * An empty hash is today's list; a hash that names no page, or whose ID cannot be decoded
+ * (`#/sample/%`), is the 'not-found' page with the link as its param (never a blank app).
+ */
 export function parseRoute(hash: string): Route {
   const clean = hash.replace(/^#\/?/, '');
   const [path = '', qs = ''] = clean.split('?');
   const [id = '', param = ''] = path.split('/');
-  const area = (ALL_IDS.has(id) ? id : 'today') as AreaId;
-  return { area, param: decodeURIComponent(param), query: new URLSearchParams(qs) };
+  if (id === '') return { area: 'today', param: '', query: new URLSearchParams(qs) };
+  if (!ALL_IDS.has(id) || id === 'not-found') return { area: 'not-found', param: hash, query: new URLSearchParams() };
+  try {
+    return { area: id as AreaId, param: decodeURIComponent(param), query: new URLSearchParams(qs) };
+  } catch {
+    return { area: 'not-found', param: hash, query: new URLSearchParams() };
+  }
 }
 
 /** Just the area (kept for callers that only need it). */

@@ -27,10 +27,11 @@ async function readDraft(page: Page): Promise<Record<string, unknown> | null> {
         const r = indexedDB.open('bankside');
         r.onsuccess = () => {
           const db = r.result;
-          const g = db.transaction('drafts').objectStore('drafts').get('draft:sample:new');
+          // new-sample drafts are kept per tab: draft:sample:new:<tab>
+          const g = db.transaction('drafts').objectStore('drafts').getAll(IDBKeyRange.bound('draft:sample:new:', 'draft:sample:new:\uffff'));
           g.onsuccess = () => {
             db.close();
-            resolve((g.result?.form as Record<string, unknown>) ?? null);
+            resolve((g.result[0]?.form as Record<string, unknown>) ?? null);
           };
         };
       }),

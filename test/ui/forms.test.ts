@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { parseDecimal } from '../../src/ui/forms/parse';
-import { emptyForm, formFromSample, formToSample } from '../../src/ui/forms/sample-form';
+import { applyFormToSample, emptyForm, formFromSample, formToSample } from '../../src/ui/forms/sample-form';
 import { Sample } from '../../src/records/schema';
 
 describe('parseDecimal', () => {
@@ -86,5 +86,85 @@ describe('sample form ↔ record', () => {
     const back = formToSample(formFromSample(stored)).record;
     expect(back.field).toEqual(rec.field);
     expect(back.time).toBe(rec.time);
+  });
+});
+
+describe('editing a stored sample keeps every stored field (form ↔ record round trip)', () => {
+  const time = fc.record({ d: fc.integer({ min: 1, max: 28 }), h: fc.integer({ min: 0, max: 23 }), m: fc.integer({ min: 0, max: 59 }) })
+    .map(({ d, h, m }) => `2026-06-${String(d).padStart(2, '0')}T${String(h).padStart(2, '0')}:${String(m).padStart(2, '0')}:00-06:00`);
+  const num = (min: number, max: number) => fc.integer({ min: Math.round(min * 100), max: Math.round(max * 100) }).map((i) => i / 100);
+  const reading = (min: number, max: number) => fc.record({ values: fc.array(fc.record({ time, value: num(min, max) }), { minLength: 1, maxLength: 4 }), override: fc.option(fc.string({ maxLength: 30 }), { nil: undefined }) }, { requiredKeys: ['values'] });
+  const otherKit = fc.record({ analyte: fc.constantFrom('magnesium', 'ammonia-n', 'chloride', 'sulfate'), value: num(0, 500), unit: fc.constantFrom('mg/L', 'mmol/L', 'meq/L'), step: fc.option(num(0, 5), { nil: undefined }) }, { requiredKeys: ['analyte', 'value', 'unit'] });
+  const caKit = fc.oneof(
+    fc.record({ analyte: fc.constant('calcium'), value: num(0, 500), unit: fc.constantFrom('mg/L', 'mmol/L', 'meq/L'), step: fc.option(num(0, 5), { nil: undefined }) }, { requiredKeys: ['analyte', 'value', 'unit'] }),
+    fc.record({ analyte: fc.constant('calcium-hardness'), value: num(0, 500), unit: fc.constant('mg/L CaCO3'), step: fc.option(num(0, 5), { nil: undefined }) }, { requiredKeys: ['analyte', 'value', 'unit'] }),
+  );
+  const thKit = fc.record({ analyte: fc.constant('total-hardness'), value: num(0, 900), unit: fc.constant('mg/L CaCO3'), step: fc.option(num(0, 5), { nil: undefined }) }, { requiredKeys: ['analyte', 'value', 'unit'] });
+  const sample = fc.record({
+    t: time,
+    crew: fc.array(fc.stringMatching(/^[A-Z][a-z]{1,8}$/), { maxLength: 3 }),
+    fieldDayId: fc.option(fc.constant('day-7'), { nil: undefined }),
+    appearance: fc.string({ maxLength: 40 }),
+    weather: fc.string({ maxLength: 40 }),
+    remarks: fc.string({ maxLength: 60 }),
+    createdBy: fc.string({ maxLength: 20 }),
+    demo: fc.option(fc.boolean(), { nil: undefined }),
+    profileVersion: fc.integer({ min: 1, max: 4 }),
+    qc: fc.oneof(fc.constant({ type: 'environmental' as const }), fc.record({ type: fc.constantFrom('replicate' as const, 'blank' as const), parentId: fc.constant('sample-parent') })),
+    method: fc.constantFrom('in-situ' as const, 'flow-through' as const, 'grab' as const),
+    flow: fc.constantFrom('low' as const, 'dry' as const, 'unknown' as const),
+    qualifiers: fc.subarray(['estimated', 'unstable', 'outside-calibration', 'suspect'] as const),
+    tempC: reading(-2, 40),
+    pH: fc.option(reading(0, 14), { nil: undefined }),
+    doR: fc.option(fc.tuple(reading(0, 20), fc.constantFrom('mg/L' as const, '%' as const)), { nil: undefined }),
+    cond: fc.option(fc.record({ mode: fc.constantFrom('sc' as const, 'ec' as const), values: fc.array(fc.record({ time, value: num(0, 5000) }), { minLength: 1, maxLength: 3 }), alpha: num(0, 0.05), tempC: fc.option(num(0, 30), { nil: undefined }) }, { requiredKeys: ['mode', 'values', 'alpha'] }), { nil: undefined }),
+    alk: fc.option(fc.oneof(
+      fc.record({ kind: fc.constant('direct' as const), value: num(0, 900), unit: fc.constantFrom('mg/L CaCO3' as const, 'meq/L' as const, 'mg/L HCO3' as const) }),
+      fc.record({ kind: fc.constant('titration' as const), titration: fc.record({ sampleVolumeMl: num(1, 200), titrantNormality: num(0.01, 2), correctionFactor: num(0.5, 1.5), equipment: fc.constantFrom('buret' as const, 'digital-titrator' as const), countsPerMl: fc.constantFrom(800, 400), filtered: fc.boolean(), points: fc.array(fc.record({ amount: num(0, 50), pH: num(3, 9) }), { minLength: 2, maxLength: 5 }) }) }),
+    ), { nil: undefined }),
+    kits: fc.tuple(fc.option(caKit, { nil: undefined }), fc.option(thKit, { nil: undefined }), fc.array(otherKit, { maxLength: 2 }), fc.boolean()),
+    pressure: fc.option(fc.record({ value: num(500, 1100), unit: fc.constantFrom('hPa' as const, 'kPa' as const, 'mmHg' as const), source: fc.constantFrom('station' as const, 'sea-level' as const, 'estimated' as const) }), { nil: undefined }),
+    mgMgL: fc.option(num(0, 100), { nil: undefined }),
+  }).map((g) => {
+    const [ca, th, others, thFirst] = g.kits;
+    const kits = [...(thFirst ? [th, ca] : [ca, th]).filter((k) => k !== undefined), ...others];
+    return Sample.parse({
+      id: 'sample-1', createdAt: g.t, updatedAt: g.t, siteId: 'site-1', time: g.t, localDate: g.t.slice(0, 10),
+      crew: g.crew, method: g.method, flow: g.flow, weather: g.weather, appearance: g.appearance, qc: g.qc,
+      ...(g.fieldDayId ? { fieldDayId: g.fieldDayId } : {}), ...(g.demo !== undefined ? { demo: g.demo } : {}),
+      ...(g.pressure ? { pressure: g.pressure } : {}),
+      field: {
+        tempC: g.tempC, ...(g.pH ? { pH: g.pH } : {}), ...(g.doR ? { do: { ...g.doR[0], unit: g.doR[1] } } : {}),
+        ...(g.cond ? { conductance: { ...g.cond, unit: 'uS/cm' } } : {}), ...(g.alk ? { alkalinity: g.alk } : {}),
+        kits, ions: g.mgMgL !== undefined ? { mgMgL: g.mgMgL } : {},
+      },
+      lab: [{ parameter: 'Mg', value: 4.2, unit: 'mg/L', importedAt: g.t }],
+      remarks: g.remarks, qualifiers: g.qualifiers, profileId: 'project-x', profileVersion: g.profileVersion, revision: 3, createdBy: g.createdBy,
+    });
+  });
+
+  it('property: open a stored sample, save without edits: the record is unchanged, field for field', () => {
+    fc.assert(
+      fc.property(sample, (s) => {
+        const r = formToSample(formFromSample(s));
+        expect(r.errors).toEqual({});
+        expect(Sample.parse(applyFormToSample(s, r.record))).toEqual(s);
+      }),
+      { seed: 13, numRuns: 300 },
+    );
+  });
+
+  it('an edit of one reading changes that reading only: field day, appearance, overrides, kit step, other kits and created-by stay', () => {
+    fc.assert(
+      fc.property(sample, (s) => {
+        const form = formFromSample(s);
+        form.temp = [...form.temp.slice(0, -1), { ...form.temp.at(-1)!, v: '11.5' }];
+        const next = Sample.parse(applyFormToSample(s, formToSample(form).record));
+        expect(next.field.tempC!.values.at(-1)!.value).toBe(11.5);
+        expect({ ...next, field: { ...next.field, tempC: s.field.tempC } }).toEqual(s);
+        expect(next.field.tempC!.override).toBe(s.field.tempC!.override);
+      }),
+      { seed: 14, numRuns: 200 },
+    );
   });
 });

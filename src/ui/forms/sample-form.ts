@@ -2,7 +2,7 @@
 // mapping to and from the stored record. Pure functions: tested without a browser.
 import type { Sample } from '../../records/schema';
 import type { SampleInputRecord } from '../../store/records';
-import { isoWithOffset } from '../../records/time';
+import { isoTimeProblem, isoWithOffset } from '../../records/time';
 import { parseDecimal, type NumberRule } from './parse';
 
 export interface TimedRaw {
@@ -57,7 +57,7 @@ export interface SampleForm {
   titPoints: Array<{ amount: string; pH: string }>;
   kitAnalyte: 'calcium' | 'calcium-hardness';
   kitValue: string;
-  kitUnit: 'mg/L' | 'mg/L CaCO3' | 'mmol/L';
+  kitUnit: 'mg/L' | 'mg/L CaCO3' | 'mmol/L' | 'meq/L';
   /** the kit was run on filtered water (WQX fraction Dissolved; else Total); absent in older drafts */
   kitFiltered?: boolean;
   totalHardness: string;
@@ -163,8 +163,10 @@ export function formToSample(form: SampleForm): FormResult {
     }
     return p.value;
   };
-  const time = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2})?(Z|[+-]\d{2}:\d{2})$/.test(form.time) ? form.time : undefined;
-  if (!time) errors.time = 'Enter the sampling time with its UTC offset, e.g. 2026-06-14T09:30-06:00.';
+  // The same rule as the store, restore and the importers (records/time.ts isoTimeProblem).
+  const timeProblem = isoTimeProblem(form.time.trim());
+  const time = timeProblem ? undefined : form.time.trim();
+  if (timeProblem) errors.time = /^Impossible/.test(timeProblem) ? `${timeProblem}. Correct the sampling time.` : 'Enter the sampling time with its UTC offset, e.g. 2026-06-14T09:30-06:00.';
   const t0 = time ?? isoWithOffset();
   if (!form.siteId) missing.push('site');
 
@@ -280,11 +282,72 @@ export function formFromSample(s: Sample): SampleForm {
     titPoints: alk?.kind === 'titration' ? alk.titration.points.map((p) => ({ amount: String(p.amount), pH: String(p.pH) })) : f.titPoints,
     kitAnalyte: kit?.analyte === 'calcium-hardness' ? 'calcium-hardness' : 'calcium',
     kitValue: kit ? String(kit.value) : '',
-    kitUnit: kit ? (kit.unit === 'meq/L' ? 'mmol/L' : kit.unit) : 'mg/L',
+    kitUnit: kit ? kit.unit : 'mg/L',
     kitFiltered: (kit ?? th)?.fraction === 'dissolved',
     totalHardness: th ? String(th.value) : '',
     ions: Object.fromEntries(ION_FIELDS.map((x) => [x.key, fld.ions[x.key] !== undefined ? String(fld.ions[x.key]) : ''])) as Record<IonKey, string>,
     remarks: s.remarks,
     qualifiers: s.qualifiers,
   };
+}
+
+/**
+ * Put what the form edits onto the stored record, keeping every stored field the form does not
+ * show (field day, appearance, reading override reasons, kit steps, other kits, titration counts
+ * per mL and filtering, created-by, lab values, profile version, demo mark …). Without this an edit
+ * would silently drop them.
+ */
+export function applyFormToSample(stored: Sample, rec: SampleInputRecord): SampleInputRecord {
+  const sf = stored.field;
+  const rf = rec.field ?? { kits: [], ions: {} };
+  const withOverride = <R extends { values: unknown[] }>(next: R | undefined, before: { override?: string | undefined } | undefined): R | undefined =>
+    next && before?.override !== undefined ? { ...next, override: before.override } : next;
+  const FORM_KITS = new Set(['calcium', 'calcium-hardness', 'total-hardness']);
+  // Kits keep their stored order and steps; the form's calcium and hardness kits replace their stored ones.
+  const fromForm = (rf.kits ?? []).map((k) => {
+    const before = sf.kits.find((b) => b.analyte === k.analyte || (FORM_KITS.has(b.analyte) && b.analyte !== 'total-hardness' && k.analyte !== 'total-hardness'));
+    return before?.step !== undefined && k.step === undefined ? { ...k, step: before.step } : k;
+  });
+  const slot = (a: string) => (a === 'total-hardness' ? 'th' : FORM_KITS.has(a) ? 'ca' : a);
+  const kits: typeof fromForm = [];
+  for (const k of sf.kits) {
+    if (!FORM_KITS.has(k.analyte)) kits.push(k);
+    else {
+      const mine = fromForm.find((f) => slot(f.analyte) === slot(k.analyte));
+      if (mine && !kits.includes(mine)) kits.push(mine);
+    }
+  }
+  for (const f of fromForm) if (!kits.includes(f)) kits.push(f);
+  let alkalinity = rf.alkalinity;
+  if (alkalinity?.kind === 'titration' && sf.alkalinity?.kind === 'titration') {
+    const b = sf.alkalinity.titration;
+    alkalinity = { kind: 'titration', titration: { ...alkalinity.titration, countsPerMl: b.countsPerMl, filtered: b.filtered } };
+  }
+  const field: NonNullable<SampleInputRecord['field']> = {
+    ...sf,
+    ...rf,
+    kits,
+    ions: { ...rf.ions },
+  };
+  const tempC = withOverride(rf.tempC, sf.tempC);
+  const pH = withOverride(rf.pH, sf.pH);
+  const dox = withOverride(rf.do, sf.do);
+  if (tempC) field.tempC = tempC; else delete field.tempC;
+  if (pH) field.pH = pH; else delete field.pH;
+  if (dox) field.do = dox; else delete field.do;
+  if (rf.conductance) {
+    // SC mode has no temperature field on the form: a stored one stays.
+    const keepT = rf.conductance.mode === 'sc' && sf.conductance?.mode === 'sc' && sf.conductance.tempC !== undefined;
+    field.conductance = keepT ? { ...rf.conductance, tempC: sf.conductance!.tempC } : rf.conductance;
+  } else delete field.conductance;
+  if (alkalinity) field.alkalinity = alkalinity; else delete field.alkalinity;
+  // The crew list is shown as text: an unedited list keeps its stored entries exactly.
+  const crew = rec.crew && rec.crew.join(', ') === stored.crew.map((c) => c.trim()).filter(Boolean).join(', ') ? stored.crew : rec.crew;
+  const qc = rec.qc && rec.qc.type === stored.qc.type && (rec.qc.parentId ?? '') === (stored.qc.type === 'environmental' ? '' : stored.qc.parentId ?? '') ? stored.qc : rec.qc;
+  const next: SampleInputRecord = { ...stored, ...rec, id: stored.id, crew, field };
+  next.localDate = (rec.time ?? stored.time).slice(0, 10);
+  if (qc) next.qc = qc;
+  if (rec.pressure) next.pressure = rec.pressure;
+  else delete next.pressure;
+  return next;
 }

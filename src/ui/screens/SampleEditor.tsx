@@ -5,6 +5,7 @@ import { isoWithOffset } from '../../records/time';
 import type { Sample } from '../../records/schema';
 import { onChange, setBeforeClose } from '../../store/connection';
 import {
+  adoptOrphanDraft,
   deleteDraft,
   deleteSample,
   getDraft,
@@ -20,6 +21,10 @@ import {
 } from '../../store/records';
 import { Choice, CoreField, Fold, moveOnEnter, SelectField, TextField, TimeField } from '../components/Field';
 import { Icon } from '../components/Icon';
+import { ConflictChoice } from '../components/ConflictChoice';
+import { NotFound } from '../components/NotFound';
+import { RejudgeNote } from '../components/RejudgeNote';
+import { liveTabIds, tabId } from '../tab';
 import { RepeatedReadings } from '../components/Readings';
 import { ResultsPanel } from '../components/Results';
 import { StateBadge } from '../components/State';
@@ -27,8 +32,8 @@ import { SampleCode } from '../components/SampleCode';
 import { ParentPicker, QcLiveVerdict } from '../day/QcSection';
 import { dayMeters } from '../day/DayMeters';
 import { TitrationPlot } from '../components/TitrationPlot';
-import { useLive, useProfile, useSettingsState } from '../data';
-import { emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm, type TimedRaw } from '../forms/sample-form';
+import { useLive, useProfile, useProfileOf, useSettingsState } from '../data';
+import { applyFormToSample, emptyForm, formFromSample, formToSample, ION_FIELDS, type SampleForm, type TimedRaw } from '../forms/sample-form';
 import { deriveLive } from '../forms/live-derive';
 import { useFolds } from '../folds';
 import { showMoment, showTime } from '../format';
@@ -39,9 +44,14 @@ import { registerDraftSaver } from '../sw-bridge';
 import { downloadText } from '../../exchange/share';
 import { NewSiteInline } from './Sites';
 
-const AUTOSAVE_MS = 400;
+type SampleInputLike = Parameters<typeof saveSample>[0] & { id?: string; createdAt?: string; revision?: number; sampleCode?: string };
 
-function draftIdFor(sampleId: string | undefined): string {
+const AUTOSAVE_MS = 400;
+/** while typing goes on without a pause, the draft is still saved at least this often */
+const AUTOSAVE_MAX_WAIT_MS = 1000;
+
+/** Drafts are kept per tab: "draft:sample:new:<tab>" or "draft:sample:<id>:<tab>". */
+function draftPrefixFor(sampleId: string | undefined): string {
   return sampleId ? `draft:sample:${sampleId}` : 'draft:sample:new';
 }
 
@@ -58,11 +68,18 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
   const [missing, setMissing] = useState<string[]>([]);
   const [saving, setSaving] = useState(false);
   const [stored, setStored] = useState<Sample | undefined>(undefined);
-  const draftId = draftIdFor(sampleId);
+  const [notFound, setNotFound] = useState(false);
+  const [conflict, setConflict] = useState<Sample | null>(null);
+  const profileOf = useProfileOf();
+  const draftPrefix = draftPrefixFor(sampleId);
+  const draftId = `${draftPrefix}:${tabId()}`;
   const formRef = useRef<SampleForm | null>(null);
   const dirty = useRef(false);
   /** a new form nobody has typed in and no draft replaced: Settings' defaults may still fill it */
   const fresh = useRef(!sampleId);
+  const firstDirtyAt = useRef(0);
+  /** the stored revision this edit started from */
+  const baseRevision = useRef<number | undefined>(undefined);
   formRef.current = form;
 
   // Load: an unsaved draft wins over the stored record (nothing typed is lost).
@@ -70,9 +87,17 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
     void loadSchemas(); // the draft's validation is ready before the first keystroke needs it
     let live = true;
     (async () => {
-      const [draft, existing] = await Promise.all([getDraft(draftId), sampleId ? getSample(sampleId) : Promise.resolve(undefined)]);
+      const [own, existing] = await Promise.all([getDraft(draftId), sampleId ? getSample(sampleId) : Promise.resolve(undefined)]);
+      let draft = own;
+      if (!draft) {
+        // A draft left by a tab that was closed or killed is taken over (never one of a live tab).
+        const liveTabs = await liveTabIds();
+        if (liveTabs) draft = await adoptOrphanDraft(draftPrefix, draftId, liveTabs);
+      }
       if (!live) return;
       setStored(existing);
+      baseRevision.current = draft?.baseRevision ?? existing?.revision;
+      if (sampleId && !existing && !draft) return setNotFound(true);
       if (draft) {
         const restored = { ...emptyForm(), ...(draft.form as Partial<SampleForm>) } as SampleForm;
         if (dirty.current) {
@@ -85,7 +110,11 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
           setRestoredAt(draft.updatedAt);
         }
       } else if (existing) setForm(formFromSample(existing));
-    })().catch(() => live && setForm(emptyForm()));
+    })().catch((err: unknown) => {
+      if (!live) return;
+      setSaveError(toStoreError(err));
+      if (!sampleId) setForm((f) => f ?? emptyForm());
+    });
     return () => {
       live = false;
     };
@@ -107,7 +136,13 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
       if (!dirty.current || !formRef.current) return;
       dirty.current = false;
       try {
-        await putDraft({ id: draftId, kind: 'sample', ...(sampleId ? { targetId: sampleId } : {}), form: formRef.current as unknown as Record<string, unknown> });
+        await putDraft({
+          id: draftId,
+          kind: 'sample',
+          ...(sampleId ? { targetId: sampleId } : {}),
+          ...(baseRevision.current !== undefined ? { baseRevision: baseRevision.current } : {}),
+          form: formRef.current as unknown as Record<string, unknown>,
+        });
       } catch (e) {
         dirty.current = true;
         throw e;
@@ -116,12 +151,14 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
     return chain.current;
   };
 
-  // Debounced autosave on every change, and an immediate save when the page hides or updates.
+  // Autosave 400 ms after a pause, and at least every second while typing goes on without one;
+  // an immediate save when the page hides or updates.
   useEffect(() => {
     if (!form || !dirty.current) return;
+    const wait = Math.max(0, Math.min(AUTOSAVE_MS, firstDirtyAt.current + AUTOSAVE_MAX_WAIT_MS - Date.now()));
     const t = setTimeout(() => {
       flush().catch((e) => setSaveError(toStoreError(e)));
-    }, AUTOSAVE_MS);
+    }, wait);
     return () => clearTimeout(t);
   }, [form]);
   useEffect(() => {
@@ -140,6 +177,7 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
   }, [draftId]);
 
   const update = (patch: Partial<SampleForm>) => {
+    if (!dirty.current) firstDirtyAt.current = Date.now();
     dirty.current = true;
     fresh.current = false;
     setForm((f) => (f ? { ...f, ...patch } : f));
@@ -155,16 +193,25 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
   const folds = useFolds(settingsLoaded ? settings.operator : null);
   const parsed = useMemo(() => (form ? formToSample(form) : null), [form]);
   // formToSample fills every default the derivation reads (kits, ions, alpha), so no schema pass is needed here.
-  const live = useMemo(() => (form && parsed ? deriveLive(form, parsed.record, stored?.lab ?? [], settings, profile) : null), [parsed, settings, stored, profile]);
+  // A stored sample is judged under the profile version it was recorded with; a new one under the active profile.
+  const judgedBy = stored ? profileOf(stored) : profile;
+  const live = useMemo(() => (form && parsed ? deriveLive(form, parsed.record, stored?.lab ?? [], settings, judgedBy) : null), [parsed, settings, stored, judgedBy]);
 
-  if (!form || !parsed || !live) return <p class="muted">Opening…</p>;
+  if (notFound) return <NotFound what={`No sample “${sampleId}” on this phone.`} detail="It may have been recorded on another phone, or the link is incomplete." />;
+
+  if (!form || !parsed || !live) return saveError ? <p class="notice bad" role="alert">{saveError.message}</p> : <p class="muted">Opening…</p>;
   const derived = live.derived;
   const blocking: Record<string, string> = { ...parsed.errors, ...live.errors };
   // shown on each box: what must be corrected, and warnings about that very entry
   const e: Record<string, string> = { ...live.marks, ...blocking };
   const warn = splitWarnings(derived.warnings);
 
-  const save = async () => {
+  /**
+   * Save: the record and the removal of its draft happen in one transaction, and the save carries
+   * the revision the edit started from. 'mine' overwrites a newer revision the crew has seen;
+   * 'both' keeps the other version and saves this entry as a separate sample.
+   */
+  const save = async (resolve?: 'mine' | 'both') => {
     setSaveError(null);
     const need = [...parsed.missing];
     const wrong = Object.keys(blocking);
@@ -175,17 +222,42 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
     setMissing(need);
     if (need.length > 0) return;
     setSaving(true);
+    const by = settings.operator || 'field crew';
     try {
-      const rec = await saveSample({ ...parsed.record, profileId: profile.id, profileVersion: profile.version, ...(stored ? { createdAt: stored.createdAt, lab: stored.lab, instrumentIds: stored.instrumentIds, demo: stored.demo } : { instrumentIds: await dayMeters(parsed.record.time) }) }, settings.operator || 'field crew');
+      await chain.current.catch(() => undefined); // no draft write may land after the save
       dirty.current = false;
-      await deleteDraft(draftId);
+      const base = resolve === 'both' ? conflict : stored;
+      let rec: Sample;
+      if (base && resolve === 'both') {
+        // a separate sample: its own id, revision history and readable code
+        const { id: _id, createdAt: _c, revision: _r, sampleCode: _code, ...copy } = applyFormToSample(base, parsed.record) as SampleInputLike;
+        rec = await saveSample(copy as Parameters<typeof saveSample>[0], by, { draftId, note: `kept both: your version of ${base.id}, saved beside revision ${base.revision}` });
+      } else if (base) {
+        const expected = resolve === 'mine' && conflict ? conflict.revision : baseRevision.current;
+        rec = await saveSample(applyFormToSample(base, parsed.record), by, { draftId, ...(expected !== undefined ? { expectedRevision: expected } : {}) });
+      } else {
+        rec = await saveSample({ ...parsed.record, profileId: profile.id, profileVersion: profile.version, createdBy: by, instrumentIds: await dayMeters(parsed.record.time) }, by, { draftId });
+      }
+      setConflict(null);
       go(`#/today?date=${rec.localDate}&saved=${rec.id}`);
     } catch (err) {
-      setSaveError(toStoreError(err));
+      const se = toStoreError(err);
+      dirty.current = true;
+      if (se.kind === 'conflict') setConflict(se.current as Sample);
+      else setSaveError(se);
       await flush().catch(() => undefined);
     } finally {
       setSaving(false);
     }
+  };
+  const keepTheirs = async () => {
+    if (!conflict) return;
+    await deleteDraft(draftId);
+    dirty.current = false;
+    baseRevision.current = conflict.revision;
+    setStored(conflict);
+    setForm(formFromSample(conflict));
+    setConflict(null);
   };
 
   const siteList = sites.data ?? [];
@@ -218,6 +290,7 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
           <button type="button" class="linkish" onClick={async () => { if (form) await putDraft({ id: `${draftId}:${isoWithOffset()}`, kind: 'sample', form: form as unknown as Record<string, unknown> }); dirty.current = true; setForm(olderDraft.form); setOlderDraft(null); }}>Open it instead</button>
         </p>
       )}
+      {stored && <RejudgeNote sample={stored} judgedBy={judgedBy} active={profile} by={settings.operator || 'field crew'} onDone={(s) => { setStored(s); baseRevision.current = s.revision; }} />}
       {deleted && <DeletedNotice id={stored!.id} by={settings.operator} />}
       <div class="editor-grid">
         <form class="editor-form" onSubmit={(ev) => { ev.preventDefault(); void save(); }} onKeyDown={moveOnEnter} noValidate>
@@ -303,6 +376,7 @@ export function SampleEditor({ sampleId, siteId }: { sampleId?: string; /** a ne
             label={stored ? 'Save changes' : 'Save sample'}
             disabled={deleted}
           />
+          {conflict && <ConflictChoice theirs={conflict} onMine={() => void save('mine')} onTheirs={() => void keepTheirs()} onBoth={() => void save('both')} />}
           {saveError && (
             <div class="notice bad" role="alert">
               <p>{saveError.message}</p>
