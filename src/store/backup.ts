@@ -14,6 +14,7 @@ import {
   Site,
 } from '../records/schema';
 import { isoWithOffset } from '../records/time';
+import { fieldLabel, fieldProblems } from '../records/validate';
 import { getDb, notifyChange } from './connection';
 import { DB_VERSION } from './db';
 import { BACKUP_STORES, toStoreError } from './records';
@@ -118,7 +119,7 @@ export async function restoreBackup(text: string): Promise<RestoreReport> {
     records.forEach((r, i) => {
       const p = schema.safeParse(r);
       if (p.success) valid[name]!.push(p.data as Record<string, unknown>);
-      else problems.push(`${name}[${i}]: ${p.error.issues.map((x) => `${x.path.join('.')} ${x.message}`).join('; ')}`);
+      else problems.push(`${name}[${i}]: ${Object.entries(fieldProblems(p.error)).map(([k, v]) => `${fieldLabel(k)}: ${v}`).join('; ')}`);
     });
   }
   if (problems.length > 0) {

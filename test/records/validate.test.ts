@@ -78,6 +78,7 @@ describe('a bad time stored before this rule never hides a day or breaks an expo
     const good = await saveSample(sampleAt('2026-06-14T09:30:00-06:00'), 'T. Mills');
     const raw = JSON.parse(JSON.stringify(good).replaceAll('09:30:00', '25:61:00'));
     raw.id = 'legacy-bad';
+    raw.sampleCode = 'LEGACY-20260614-2561';
     await (await getDb()).put('samples', raw); // as an older version could have stored it
     expect((await listDay('2026-06-14')).map((s) => s.id).sort()).toEqual([good.id, 'legacy-bad'].sort());
     expect(await listDays()).toEqual([{ date: '2026-06-14', count: 2 }]);
