@@ -152,7 +152,7 @@ describe('editing a stored sample keeps every stored field (form ↔ record roun
       }),
       { seed: 13, numRuns: 300 },
     );
-  });
+  }, 30_000);
 
   it('an edit of one reading changes that reading only: field day, appearance, overrides, kit step, other kits and created-by stay', () => {
     fc.assert(
@@ -166,5 +166,5 @@ describe('editing a stored sample keeps every stored field (form ↔ record roun
       }),
       { seed: 14, numRuns: 200 },
     );
-  });
+  }, 30_000);
 });
