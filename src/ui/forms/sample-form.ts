@@ -306,7 +306,13 @@ export function applyFormToSample(stored: Sample, rec: SampleInputRecord): Sampl
   // Kits keep their stored order and steps; the form's calcium and hardness kits replace their stored ones.
   const fromForm = (rf.kits ?? []).map((k) => {
     const before = sf.kits.find((b) => b.analyte === k.analyte || (FORM_KITS.has(b.analyte) && b.analyte !== 'total-hardness' && k.analyte !== 'total-hardness'));
-    return before?.step !== undefined && k.step === undefined ? { ...k, step: before.step } : k;
+    const withStep = before?.step !== undefined && k.step === undefined ? { ...k, step: before.step } : k;
+    // a stored kit without a fraction stays without one unless the crew ticked "filtered"
+    if (before && before.fraction === undefined && withStep.fraction === 'total') {
+      const { fraction: _f, ...rest } = withStep;
+      return rest;
+    }
+    return withStep;
   });
   const slot = (a: string) => (a === 'total-hardness' ? 'th' : FORM_KITS.has(a) ? 'ca' : a);
   const kits: typeof fromForm = [];
