@@ -308,6 +308,14 @@ export const OutboxItem = z.object({
   contentType: z.string().max(100),
   body: z.string(),
   sampleIds: z.array(Id),
+  /** every file of the selection, sent as one batch (older items carry one file in fileName/body) */
+  files: z.array(z.object({ fileName: z.string().min(1).max(200), contentType: z.string().max(100), body: z.string() })).optional(),
+  /** PUT to storage: files the storage has confirmed (a retry sends only the others) */
+  delivered: z.array(z.string().max(200)).optional(),
+  /** what went wrong on the last try, as a kind the status words are chosen by */
+  problem: z.enum(['server-error', 'refused', 'no-connection', 'cors', 'redirect', 'not-confirmed', 'timeout']).optional(),
+  /** the HTTP status of the last answer, if any */
+  lastStatus: z.number().int().optional(),
 });
 
 export const ExportLogEntry = z.object({

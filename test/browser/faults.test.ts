@@ -72,6 +72,8 @@ describe('faults', () => {
       res.setHeader('Access-Control-Allow-Headers', 'Content-Type, Idempotency-Key, X-Bankside-File, X-Bankside-Samples, Authorization');
       res.setHeader('Access-Control-Allow-Methods', 'POST, PUT, OPTIONS');
       if (req.method === 'OPTIONS') return void res.writeHead(204).end();
+      // only an upload stores anything (the phone's no-cors reachability probe is a GET)
+      if (req.method !== 'POST') return void res.writeHead(405).end();
       let body = '';
       req.on('data', (c) => (body += c));
       req.on('end', () => {
