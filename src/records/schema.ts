@@ -2,7 +2,7 @@
 // stored as entered (raw EC with its temperature and α, every repeated reading with its time, every
 // titration point); computed indicators are derived from them by the engine and never stored as truth.
 import { z } from 'zod';
-import { isoTimeProblem, localDateProblem } from './time';
+import { isoTimeProblem, localDateProblem, samplingTimeProblem } from './time';
 
 // The app runs under a Content-Security-Policy without 'unsafe-eval': zod's fast path probes
 // `new Function`, which the browser reports as a policy violation. The plain path is used instead.
@@ -14,6 +14,11 @@ z.config({ jitless: true });
  */
 export const IsoDateTime = z.string().check((ctx) => {
   const problem = isoTimeProblem(ctx.value);
+  if (problem) ctx.issues.push({ code: 'custom', message: problem, input: ctx.value });
+});
+/** A sample's own time: a real instant (IsoDateTime) in a year a sample can have (not the picker slip 0025). */
+export const SamplingTime = z.string().check((ctx) => {
+  const problem = samplingTimeProblem(ctx.value);
   if (problem) ctx.issues.push({ code: 'custom', message: problem, input: ctx.value });
 });
 export const LocalDate = z.string().check((ctx) => {
@@ -190,7 +195,7 @@ export const Sample = z.object({
   siteId: Id,
   fieldDayId: Id.optional(),
   /** sampling time with its UTC offset */
-  time: IsoDateTime,
+  time: SamplingTime,
   /** the IANA time zone the sample was recorded in (e.g. America/Denver), stored with each new sample */
   timeZone: z.string().max(64).optional(),
   /** the local calendar date of `time` (index for "the day's samples") */

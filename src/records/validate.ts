@@ -6,7 +6,7 @@ import type { z } from 'zod';
 import * as S from './schema';
 
 export * from './schema';
-export { isoTimeProblem, localDateProblem, utcIsoOrUndefined } from './time';
+export { isoTimeProblem, localDateProblem, samplingTimeProblem, utcIsoOrUndefined } from './time';
 
 /** Field path → what is wrong with it, in words. */
 export type FieldProblems = Record<string, string>;

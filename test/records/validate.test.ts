@@ -1,7 +1,7 @@
 // The one validation rule (src/records/validate.ts) at every entry point. Calendar facts only
 // (24 h, 60 min, month lengths, UTC offsets within ±14:00: ISO 8601 and the IANA zone table, from memory).
 import { beforeEach, describe, expect, it } from 'vitest';
-import { isoTimeProblem, localDateProblem, validateLabResult, validateSample, fieldLabel } from '../../src/records/validate';
+import { isoTimeProblem, localDateProblem, samplingTimeProblem, validateLabResult, validateSample, fieldLabel } from '../../src/records/validate';
 import { emptyForm, formToSample } from '../../src/ui/forms/sample-form';
 import { getDb, listDay, listDays, restoreBackup, createBackup, saveSample, StoreError } from '../../src/store';
 import { longCsv, wideCsv, parseCsv } from '../../src/exchange/csv';
@@ -29,6 +29,26 @@ describe('isoTimeProblem: a real instant, not only the right shape', () => {
   it('dates: 29 February only in leap years', () => {
     expect(localDateProblem('2024-02-29')).toBeUndefined();
     expect(localDateProblem('2026-02-29')).toMatch(/day 29/);
+  });
+});
+
+describe('samplingTimeProblem: a year a sample can have', () => {
+  it('a slip of the picker\'s year part (0025 for 2025) is refused, naming the year', () => {
+    expect(samplingTimeProblem('0025-12-02T10:30:00-07:00')).toMatch(/year 0025 is before 1900; check the year/);
+    expect(samplingTimeProblem('1899-12-31T23:59:00Z')).toMatch(/year 1899/);
+  });
+  it('real sampling times pass, and impossible instants keep their own reason', () => {
+    expect(samplingTimeProblem('1900-01-01T00:00:00Z')).toBeUndefined();
+    expect(samplingTimeProblem('2026-12-02T10:30:00-07:00')).toBeUndefined();
+    expect(samplingTimeProblem('2026-06-14T25:00:00-06:00')).toMatch(/hour 25/);
+  });
+  it('the form and the stored schema refuse it on the sampling time', () => {
+    const slip = '0025-12-02T10:30:00-07:00';
+    const r = formToSample({ ...emptyForm(), siteId: 'site-1', time: slip, temp: [{ v: '9', t: '' }] });
+    expect(r.errors.time).toMatch(/year 0025.*Correct the sampling time/);
+    const v = validateSample({ ...sampleAt('2026-06-14T09:30:00-06:00'), time: slip, id: 's1', createdAt: '2026-06-14T09:00:00Z', updatedAt: '2026-06-14T09:00:00Z', localDate: '0025-12-02' });
+    expect(v.ok).toBe(false);
+    if (!v.ok) expect(v.fields.time).toMatch(/year 0025/);
   });
 });
 

@@ -2,7 +2,7 @@
 // mapping to and from the stored record. Pure functions: tested without a browser.
 import type { Sample } from '../../records/schema';
 import type { SampleInputRecord } from '../../store/records';
-import { isoTimeProblem, isoWithOffset } from '../../records/time';
+import { samplingTimeProblem, isoWithOffset } from '../../records/time';
 import { parseDecimal, type NumberRule } from './parse';
 
 export interface TimedRaw {
@@ -163,8 +163,8 @@ export function formToSample(form: SampleForm): FormResult {
     }
     return p.value;
   };
-  // The same rule as the store, restore and the importers (records/time.ts isoTimeProblem).
-  const timeProblem = isoTimeProblem(form.time.trim());
+  // The same rule as the store, restore and the importers (records/time.ts samplingTimeProblem).
+  const timeProblem = samplingTimeProblem(form.time.trim());
   const time = timeProblem ? undefined : form.time.trim();
   if (timeProblem) errors.time = /^Impossible/.test(timeProblem) ? `${timeProblem}. Correct the sampling time.` : 'Enter the sampling time with its UTC offset, e.g. 2026-06-14T09:30-06:00.';
   const t0 = time ?? isoWithOffset();
