@@ -196,7 +196,8 @@ describe('the sample screen at 360 × 740, offline', () => {
     await page.getByText('Settings saved.').waitFor();
     await page.goto(served.url + '#/new');
     await page.locator('.core').waitFor();
-    await expect(page.locator('#ions').getAttribute('open')).resolves.toBeNull();
+    // the form may render before the new operator's name is read from storage: wait for its folds
+    await page.waitForFunction(() => document.getElementById('ions')?.hasAttribute('open') === false);
   });
 
   it('"Use my position" asks for a fresh fix and shows its accuracy and age, warning above 30 m', async () => {
