@@ -1,6 +1,7 @@
 // Hosting anywhere: the one production build copied into a sub-folder of a plain static server
 // (here /field/, with everything outside it a 404) renders, installs inside the folder, works
 // offline, and runs under its own Content-Security-Policy.
+// Source of the expected values: the app's own build and manifest (no published numbers are checked here).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';

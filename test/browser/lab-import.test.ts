@@ -2,6 +2,7 @@
 // their usual spellings, censored values, a client sample ID column) is previewed row by row,
 // stored at once, and its major ions change the sample's chemistry (composition-based ionic
 // strength and a charge balance) while the field values stay. Fixture: test/fixtures/exchange/lab-as-written.csv (invented).
+// Source of the expected values: the invented fixture above; the chemistry numbers themselves are checked in test/chemistry.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { join } from 'node:path';

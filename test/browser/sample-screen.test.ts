@@ -3,6 +3,7 @@
 // marked on its own box, the time picker keeping the offset, delete asked once with undo in place,
 // history in words, folds remembered per crew, and a fresh position fix with its accuracy and age.
 // Readings are invented for the demo creek.
+// Source of the limits: the 5 s fix age and 30 m accuracy warning are our own choices (common practice for a fresh GPS fix).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import { launch, serveDist, shot, type Served } from './helpers';

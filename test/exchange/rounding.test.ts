@@ -1,5 +1,6 @@
 // Numbers as measured: every exported number is rounded by its parameter's rule (src/exchange/rounding.ts,
 // stated in DEVELOPERS.md) and never carries float noise such as 7.079999999999999.
+// Source of the rules: the resolution each field method supports (USGS NFM A6, from memory; table in DEVELOPERS.md).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { demoRecords, DEMO_SITES } from '../../src/demo/scenario';

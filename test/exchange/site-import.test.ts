@@ -1,6 +1,7 @@
 // Site lists: office CSV and the app's own sites GeoJSON, previewed with per-row errors, then stored.
 // The sites are invented (Wrenfold Creek demo names and made-up codes); no published values here
 // except the sphere's degree length, π·R/180 with R = 6,371,008.8 m (IUGG mean radius; read).
+// Source of the distance reference: IUGG mean Earth radius (read), as said above.
 import { beforeEach, describe, expect, it } from 'vitest';
 import { previewSiteCsv, previewSiteFile, importSites } from '../../src/exchange/site-import';
 import { sitesGeoJson } from '../../src/exchange/geojson';

@@ -2,6 +2,7 @@
 // ajv, plus the package's conditional rules (required/*.json) rebuilt on the template's column names:
 // as shipped they never fire (their `if` carries unevaluatedProperties: false and names columns
 // without spaces), so a row missing e.g. the sample fraction of a dissolved ion would pass.
+// Source of every rule checked: the npm `wqx` 3.0.209 JSON Schema and value lists (read from the package at test time).
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Ajv2020 from 'ajv/dist/2020';

@@ -1,6 +1,7 @@
 // The derived-result cache: reused while nothing that feeds derivation changed, recomputed exactly
 // when the sample is edited, the engine version changes, the settings change or the method profile
 // changes. Expected results are deriveSample's own (the cache must return what derivation returns).
+// Source of the expected values: deriveSample itself (no published numbers); the engine's values are checked in test/chemistry.
 import { describe, expect, it } from 'vitest';
 import { demoRecords } from '../../src/demo/scenario';
 import { Sample, DEFAULT_SETTINGS } from '../../src/records/schema';

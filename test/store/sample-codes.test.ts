@@ -1,6 +1,7 @@
 // Readable sample codes: format, uniqueness on the device, kept through edits, given by migration.
 // Expected codes follow our own format (records/sample-code.ts); the 35-character limit is the WQX
 // Activity Identifier's field length (EPA WQX schema, memory).
+// Source of the length limit: WQX Activity ID, 35 characters (npm `wqx` schema; from memory when this was written).
 import { beforeEach, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';

@@ -1,6 +1,7 @@
 // The sample screen's pure helpers: dates in the device's locale, history in words, one refused
 // entry marked on its own box without blanking the rest, warnings sorted into action and notice,
 // the chart's fixed SI scale. Expected values are our own rules (src/ui/*), no published values.
+// Source of the expected values: our own display rules; the SI scale −1…+1.5 is common practice for calcite plots.
 import { describe, expect, it } from 'vitest';
 import { showDate, showDateTime, showOffset, showTime, showAge } from '../../src/ui/format';
 import { describeChange } from '../../src/ui/history-words';
